@@ -1,0 +1,179 @@
+// Registers Protic's cell functions in HyperFormula (GPL-3.0 licence key), a real spreadsheet
+// engine used by the headless runner, the demo, the benchmarks and the tests. It is not part
+// of the add-in bundle.
+import { ArraySize, CellError, DetailedCellError, EmptyValue, ErrorType, FunctionArgumentType, FunctionPlugin, HyperFormula, SimpleRangeValue } from 'hyperformula';
+import type { RawCellContent } from 'hyperformula';
+import * as impl from '../../src/functions/impl';
+import { toCellFailure } from '../../src/functions/outcome';
+
+type Impl = (...args: unknown[]) => unknown;
+
+interface ProticFunction {
+  name: string;
+  fn: Impl;
+  arity: [number, number];
+  /** spill size when the arguments cannot be read at parse time: [rows, columns] */
+  fallback?: [number, number];
+}
+
+export const PROTIC_FUNCTIONS: ProticFunction[] = [
+  { name: 'PH', fn: impl.ph as Impl, arity: [3, 6] },
+  { name: 'TITRANT', fn: impl.titrant as Impl, arity: [6, 9] },
+  { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 2] },
+  { name: 'FRACTIONS', fn: impl.fractions as Impl, arity: [2, 4], fallback: [1, 7] },
+  { name: 'SPECIES', fn: impl.species as Impl, arity: [3, 6], fallback: [40, 5] },
+  { name: 'IONICSTRENGTH', fn: impl.ionicStrength as Impl, arity: [3, 6] },
+  { name: 'CAPACITY', fn: impl.capacity as Impl, arity: [3, 6] },
+  { name: 'PKA', fn: impl.pka as Impl, arity: [2, 4] },
+  { name: 'RECIPE', fn: impl.recipe as Impl, arity: [5, 10], fallback: [2, 2] },
+  { name: 'MOLARMASS', fn: impl.molarMass as Impl, arity: [1, 1] },
+  { name: 'VERSION', fn: impl.version as Impl, arity: [0, 0] },
+];
+
+const SPILLS = new Set(['CURVE', 'FRACTIONS', 'SPECIES', 'RECIPE']);
+
+/** Raw contents of the sheet being built, so spill sizes can be worked out from typed arguments. */
+let rawGrid: RawCellContent[][] = [];
+
+type Plain = unknown;
+
+function plainScalar(v: unknown): Plain {
+  if (v === EmptyValue) return null;
+  if (v instanceof CellError) return v;
+  if (typeof v === 'object' && v !== null && 'val' in v) return (v as { val: unknown }).val;
+  return v;
+}
+
+function plain(v: unknown): Plain {
+  if (v instanceof SimpleRangeValue) return v.data.map((row) => row.map(plainScalar));
+  return plainScalar(v);
+}
+
+function firstError(values: Plain[]): CellError | undefined {
+  for (const v of values) {
+    if (v instanceof CellError) return v;
+    if (Array.isArray(v)) for (const row of v) for (const c of row as unknown[]) if (c instanceof CellError) return c;
+  }
+  return undefined;
+}
+
+interface AstLike { type: string; value?: unknown; reference?: { toSimpleCellAddress(base: unknown): { row: number; col: number } }; start?: AstLike['reference']; end?: AstLike['reference']; args?: AstLike[] }
+
+function rawAt(row: number, col: number): unknown {
+  const v = rawGrid[row]?.[col];
+  if (typeof v === 'string' && v.startsWith('=')) return undefined;
+  return v === undefined || v === '' ? null : v;
+}
+
+/** The value of an argument as typed, or undefined when it is computed. */
+function literal(ast: AstLike, base: unknown): unknown {
+  switch (ast.type) {
+    case 'NUMBER': case 'STRING': return ast.value;
+    case 'EMPTY': return null;
+    case 'MINUS_UNARY_OP': { const inner = literal(ast.value as AstLike, base); return typeof inner === 'number' ? -inner : undefined; }
+    case 'CELL_REFERENCE': { const a = ast.reference!.toSimpleCellAddress(base); return rawAt(a.row, a.col); }
+    case 'CELL_RANGE': {
+      const s = ast.start!.toSimpleCellAddress(base), e = ast.end!.toSimpleCellAddress(base);
+      const out: unknown[][] = [];
+      for (let r = s.row; r <= e.row; r++) {
+        const row: unknown[] = [];
+        for (let c = s.col; c <= e.col; c++) {
+          const v = rawAt(r, c);
+          if (v === undefined) return undefined;
+          row.push(v);
+        }
+        out.push(row);
+      }
+      return out;
+    }
+    default: return undefined;
+  }
+}
+
+function shapeOf(result: unknown): [number, number] | undefined {
+  if (!Array.isArray(result)) return undefined;
+  return [result.length, Math.max(...result.map((r: unknown[]) => r.length))];
+}
+
+export class ProticPlugin extends FunctionPlugin {
+  static implementedFunctions: Record<string, never> = {};
+
+  run(name: string, ast: { args: AstLike[] }, state: { formulaAddress: unknown }): unknown {
+    const entry = PROTIC_FUNCTIONS.find((f) => f.name === name) as ProticFunction;
+    const values = ast.args.map((arg) => (arg.type === 'EMPTY' ? null : plain(this.evaluateAst(arg as never, state as never))));
+    const error = firstError(values);
+    if (error) return error;
+    let result: unknown;
+    try {
+      result = entry.fn(...values);
+    } catch (e) {
+      const failure = toCellFailure(e);
+      return new CellError(failure.kind === '#N/A' ? ErrorType.NA : ErrorType.VALUE, failure.message);
+    }
+    if (!SPILLS.has(name)) return result;
+    const size = this.sizeFor(name, ast, state);
+    const shape = shapeOf(result) as [number, number];
+    if (shape[0] > size[0] || shape[1] > size[1]) {
+      return new CellError(ErrorType.VALUE, `${name}: the result is ${shape[0]}×${shape[1]} but the sheet reserved ${size[0]}×${size[1]}; type the arguments that set its size into cells rather than computing them`);
+    }
+    const padded = Array.from({ length: size[0] }, (_, r) => Array.from({ length: size[1] }, (_, c) => (result as unknown[][])[r]?.[c] ?? ''));
+    return SimpleRangeValue.onlyValues(padded as never);
+  }
+
+  sizeFor(name: string, ast: { args: AstLike[] }, state: { formulaAddress: unknown }): [number, number] {
+    const entry = PROTIC_FUNCTIONS.find((f) => f.name === name) as ProticFunction;
+    const values = ast.args.map((arg) => literal(arg, state.formulaAddress));
+    if (values.some((v) => v === undefined)) return entry.fallback ?? [1, 1];
+    try {
+      return shapeOf(entry.fn(...values)) ?? [1, 1];
+    } catch {
+      // the call fails: it will show its error in one cell
+      return [1, 1];
+    }
+  }
+}
+
+for (const f of PROTIC_FUNCTIONS) {
+  const method = `fn_${f.name}`;
+  const sizeMethod = `size_${f.name}`;
+  const params = Array.from({ length: f.arity[1] }, (_, i) => ({ argumentType: FunctionArgumentType.ANY, optionalArg: i >= f.arity[0] }));
+  (ProticPlugin.implementedFunctions as Record<string, unknown>)[`PROTIC.${f.name}`] = {
+    method,
+    parameters: params,
+    ...(SPILLS.has(f.name) ? { sizeOfResultArrayMethod: sizeMethod } : {}),
+  };
+  (ProticPlugin.prototype as unknown as Record<string, unknown>)[method] = function (this: ProticPlugin, ast: { args: AstLike[] }, state: { formulaAddress: unknown }) {
+    return this.run(f.name, ast, state);
+  };
+  if (SPILLS.has(f.name)) {
+    (ProticPlugin.prototype as unknown as Record<string, unknown>)[sizeMethod] = function (this: ProticPlugin, ast: { args: AstLike[] }, state: { formulaAddress: unknown }) {
+      const [rows, cols] = this.sizeFor(f.name, ast, state);
+      return new ArraySize(cols, rows);
+    };
+  }
+}
+
+let registered = false;
+function register(): void {
+  if (registered) return;
+  const names: Record<string, string> = {};
+  for (const f of PROTIC_FUNCTIONS) names[`PROTIC.${f.name}`] = `PROTIC.${f.name}`;
+  HyperFormula.registerFunctionPlugin(ProticPlugin as never, { enGB: names, enUS: names } as never);
+  registered = true;
+}
+
+export type SheetValue = number | string | boolean | null | { error: string; message: string };
+
+/** Builds a sheet from raw cells (formulas as `=...`) and returns its evaluated values. */
+export function evaluateSheet(cells: RawCellContent[][]): SheetValue[][] {
+  register();
+  rawGrid = cells;
+  const hf = HyperFormula.buildFromArray(cells, { licenseKey: 'gpl-v3', maxRows: 1_100_000, smartRounding: false });
+  try {
+    const values = hf.getSheetValues(0);
+    return values.map((row) => row.map((v) => (v instanceof DetailedCellError ? { error: v.value, message: v.message } : (v as SheetValue))));
+  } finally {
+    hf.destroy();
+    rawGrid = [];
+  }
+}

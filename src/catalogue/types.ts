@@ -1,0 +1,60 @@
+// Shapes of the catalogue's data. Every constant carries the text of its source.
+
+/** One proton-loss step of an acid system, at 25 °C and I = 0. */
+export interface AcidStep {
+  pKa: number;
+  /** standard enthalpy of the ionisation, kJ/mol */
+  dHkJPerMol?: number;
+  /** standard heat-capacity change of the ionisation, J/(K·mol) */
+  dCpJPerKMol?: number;
+  source: string;
+}
+
+export interface AcidSystem {
+  id: string;
+  name: string;
+  aliases: string[];
+  /** charge of the most protonated form */
+  chargeMostProtonated: number;
+  /** formula of the most protonated form, without its charge (for form molar masses) */
+  formulaMostProtonated: string;
+  /** labels of the forms, most protonated first (steps.length + 1 entries) */
+  forms: string[];
+  steps: AcidStep[];
+  /** temperature range, °C, in which the data hold */
+  temperatureRangeC: [number, number];
+  notes?: string;
+  /** true for systems a user defined (pane or --systems file) */
+  custom?: boolean;
+}
+
+/** A fully dissociated ion a reagent releases (counter-ions, strong-acid anions, strong-base cations). */
+export interface StrongIon {
+  id: string;
+  charge: number;
+}
+
+export interface LiquidForm {
+  /** density of the liquid as sold, g/mL, at about 20 °C */
+  densityGPerML: number;
+  /** mass fraction of the named compound in the liquid */
+  massFraction: number;
+  source: string;
+}
+
+export interface Reagent {
+  id: string;
+  name: string;
+  aliases: string[];
+  /** anhydrous formula of one formula unit */
+  formula: string;
+  /** molecules of water of crystallisation per formula unit */
+  hydrateWater: number;
+  /** acid systems the reagent releases, moles per mole of reagent */
+  systems: { systemId: string; count: number }[];
+  /** fully dissociated ions the reagent releases, moles per mole of reagent */
+  ions: { ionId: string; count: number }[];
+  liquid?: LiquidForm;
+  /** a handbook molar mass, g/mol, that the tests check the formula against */
+  handbookMolarMass?: { gPerMol: number; source: string };
+}

@@ -1,0 +1,36 @@
+import { fail, quote } from './failure';
+
+export type ActivityModel = 'davies' | 'bates-guggenheim' | 'ideal';
+export const ACTIVITY_MODELS: readonly ActivityModel[] = ['davies', 'bates-guggenheim', 'ideal'];
+
+/** Ionic strength, mol/kg, above which each model is no longer trusted (common practice). */
+export const MODEL_LIMIT_MOLAL: Record<ActivityModel, number> = {
+  davies: 0.5,
+  'bates-guggenheim': 0.1,
+  ideal: 0,
+};
+
+export function parseModel(value: unknown, argument = 'model'): ActivityModel {
+  if (value === null || value === undefined || value === '') return 'davies';
+  const text = typeof value === 'string' ? value.trim().toLowerCase().replace(/[\s_–—]+/g, '-') : '';
+  const model = text === 'bates–guggenheim' || text === 'batesguggenheim' ? 'bates-guggenheim' : text;
+  if (!(ACTIVITY_MODELS as readonly string[]).includes(model)) {
+    fail({ code: 'bad_model', argument, received: quote(value), expected: 'davies, bates-guggenheim or ideal' });
+  }
+  return model as ActivityModel;
+}
+
+/**
+ * The ionic-strength factor F(I) with log10 γ = −A z² F(I):
+ * Davies 1962 (0.3 I term); Bates–Guggenheim convention (Bates & Guggenheim 1960, åB = 1.5).
+ */
+export function ionicStrengthFactor(model: ActivityModel, ionicStrengthMolal: number): number {
+  if (model === 'ideal' || ionicStrengthMolal <= 0) return 0;
+  const s = Math.sqrt(ionicStrengthMolal);
+  return model === 'davies' ? s / (1 + s) - 0.3 * ionicStrengthMolal : s / (1 + 1.5 * s);
+}
+
+/** ln γ of an ion of charge z is z² times this. */
+export function lnGammaPerZ2(model: ActivityModel, ionicStrengthMolal: number, debyeHuckelA: number): number {
+  return -debyeHuckelA * Math.LN10 * ionicStrengthFactor(model, ionicStrengthMolal);
+}

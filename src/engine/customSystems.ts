@@ -1,0 +1,113 @@
+import type { AcidSystem, Reagent } from '../catalogue';
+import { ACID_SYSTEMS } from '../catalogue';
+import { ProticError, describeFailure, fail, quote } from './failure';
+import { parseFormula } from './formula';
+import { normaliseName, setCustomDefinitions } from './registry';
+
+// User-defined acid systems, carried in the workbook (document settings) or a --systems file.
+// Our own JSON shape:
+// { "systems": [ { "name": "...", "pKa": [7.1], "charge": 0, "dH": [20],
+//     "forms": [ { "name": "...", "formula": "...", "protonsLost": 0 } ] } ] }
+
+export interface CustomFormDefinition { name: string; formula: string; protonsLost: number }
+export interface CustomSystemDefinition { name: string; pKa: number[]; charge: number; dH?: number[]; forms?: CustomFormDefinition[] }
+
+/** Names: letters, digits, spaces and a little punctuation; never markup. */
+const SAFE_NAME = /^[\p{L}\p{N} ()+,.'\-]{1,60}$/u;
+const COUNTER_IONS: Record<string, { ionId: string; charge: number }> = {
+  Na: { ionId: 'Na+', charge: 1 }, K: { ionId: 'K+', charge: 1 }, Li: { ionId: 'Li+', charge: 1 }, Cl: { ionId: 'Cl-', charge: -1 }, Br: { ionId: 'Br-', charge: -1 },
+};
+
+function checkName(value: unknown, argument: string): string {
+  if (typeof value !== 'string' || !SAFE_NAME.test(value.trim())) {
+    fail({ code: 'bad_argument', argument, received: quote(value), expected: 'a name of 1 to 60 letters, digits, spaces or ( ) + , . \' -' });
+  }
+  return value.trim();
+}
+
+function checkNumberList(value: unknown, argument: string, length: number | undefined, lo: number, hi: number, unit: string): number[] {
+  if (!Array.isArray(value) || value.length === 0 || value.length > 6 || (length !== undefined && value.length !== length)) {
+    fail({ code: 'bad_argument', argument, received: quote(Array.isArray(value) ? `${value.length} values` : value), expected: `a list of ${length ?? '1 to 6'} numbers` });
+  }
+  return value.map((v, i) => {
+    if (typeof v !== 'number' || !Number.isFinite(v) || v < lo || v > hi) {
+      fail({ code: 'out_of_range', argument: `${argument} ${i + 1}`, received: quote(v), expected: `a number from ${lo} to ${hi} ${unit}` });
+    }
+    return v;
+  });
+}
+
+function buildSystem(def: Record<string, unknown>, index: number, taken: Set<string>): { system: AcidSystem; reagents: Reagent[] } {
+  const where = `custom system ${index + 1}`;
+  const name = checkName(def.name, `${where} name`);
+  const key = normaliseName(name);
+  if (taken.has(key)) fail({ code: 'bad_argument', argument: `${where} name`, received: quote(name), expected: 'a name not already used by the catalogue or another custom system' });
+  taken.add(key);
+  const pKa = checkNumberList(def.pKa, `${where} pKa`, undefined, -2, 16, '');
+  for (let i = 1; i < pKa.length; i++) {
+    if (!(pKa[i] > pKa[i - 1])) fail({ code: 'bad_argument', argument: `${where} pKa`, received: pKa.join(', '), expected: 'pKa values in increasing order, first proton lost first' });
+  }
+  const charge = def.charge;
+  if (typeof charge !== 'number' || !Number.isInteger(charge) || charge < -6 || charge > 6) {
+    fail({ code: 'bad_argument', argument: `${where} charge`, received: quote(charge), expected: 'the whole-number charge of the most protonated form, −6 to 6' });
+  }
+  const dH = def.dH === undefined ? undefined : checkNumberList(def.dH, `${where} dH`, pKa.length, -200, 200, 'kJ/mol');
+  const id = `custom:${key}`;
+  const formsIn = def.forms === undefined ? [] : def.forms;
+  if (!Array.isArray(formsIn) || formsIn.length > pKa.length + 1) fail({ code: 'bad_argument', argument: `${where} forms`, received: quote(Array.isArray(formsIn) ? `${formsIn.length} forms` : formsIn), expected: `at most ${pKa.length + 1} forms` });
+  const reagents: Reagent[] = (formsIn as Record<string, unknown>[]).map((form, j) => {
+    const formWhere = `${where} form ${j + 1}`;
+    const formName = checkName(form?.name, `${formWhere} name`);
+    if (taken.has(normaliseName(formName))) fail({ code: 'bad_argument', argument: `${formWhere} name`, received: quote(formName), expected: 'a name not already used' });
+    taken.add(normaliseName(formName));
+    if (typeof form.formula !== 'string' || form.formula.length > 100) fail({ code: 'bad_formula', argument: `${formWhere} formula`, received: quote(form.formula), expected: 'a formula such as C6H12NNaO4S', position: 1 });
+    const parsed = parseFormula(form.formula, `${formWhere} formula`);
+    const lost = form.protonsLost;
+    if (typeof lost !== 'number' || !Number.isInteger(lost) || lost < 0 || lost > pKa.length) {
+      fail({ code: 'bad_argument', argument: `${formWhere} protonsLost`, received: quote(lost), expected: `a whole number from 0 to ${pKa.length}` });
+    }
+    const ions = Object.entries(COUNTER_IONS).filter(([el]) => (parsed.anhydrous[el] ?? 0) > 0).map(([el, ion]) => ({ ionId: ion.ionId, count: parsed.anhydrous[el] }));
+    const balance = charge - lost + ions.reduce((sum, ion) => sum + ion.count * COUNTER_IONS[Object.keys(COUNTER_IONS).find((el) => COUNTER_IONS[el].ionId === ion.ionId) as string].charge, 0);
+    if (balance !== 0) {
+      fail({ code: 'bad_argument', argument: `${formWhere} formula`, received: `${form.formula}, net charge ${balance}`, expected: 'a neutral salt: counter-ions (Na, K, Li, Cl, Br) that balance the form\'s charge' });
+    }
+    return { id: `${id}:${j}`, name: formName, aliases: [], formula: form.formula.split(/[·•.*]\s*\d*H2O$/)[0], hydrateWater: parsed.hydrateWater, systems: [{ systemId: id, count: 1 }], ions };
+  });
+  const system: AcidSystem = {
+    id, name, aliases: [], custom: true,
+    chargeMostProtonated: charge,
+    formulaMostProtonated: '',
+    forms: pKa.concat([0]).map((_, j) => `${name} (${charge - j > 0 ? '+' : ''}${charge - j})`),
+    steps: pKa.map((v, i) => ({ pKa: v, dHkJPerMol: dH?.[i], source: 'user-defined in this workbook' })),
+    temperatureRangeC: [0, 60],
+    notes: 'User-defined; not part of the reviewed catalogue.',
+  };
+  return { system, reagents };
+}
+
+/** Validates custom definitions; returns the problems, one message each, or registers them. */
+export function applyCustomDefinitions(json: unknown): string[] {
+  const problems: string[] = [];
+  const systems: AcidSystem[] = [];
+  const reagents: Reagent[] = [];
+  const list = (json as { systems?: unknown } | null)?.systems;
+  if (!Array.isArray(list) || list.length > 100) return ['custom systems: expected an object with a "systems" list of at most 100 entries'];
+  const taken = new Set(ACID_SYSTEMS.map((s) => normaliseName(s.name)));
+  list.forEach((def, i) => {
+    try {
+      if (typeof def !== 'object' || def === null) fail({ code: 'bad_argument', argument: `custom system ${i + 1}`, received: quote(def), expected: 'an object with name, pKa and charge' });
+      const built = buildSystem(def as Record<string, unknown>, i, taken);
+      systems.push(built.system);
+      reagents.push(...built.reagents);
+    } catch (error) {
+      if (!(error instanceof ProticError)) throw error;
+      problems.push(describeFailure(error.failure));
+    }
+  });
+  if (problems.length === 0) setCustomDefinitions(systems, reagents);
+  return problems;
+}
+
+export function clearCustomDefinitions(): void {
+  setCustomDefinitions([], []);
+}

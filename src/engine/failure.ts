@@ -1,0 +1,79 @@
+// Failures are data: a union keyed on `code`, with the fields that explain it.
+
+interface FailureFields {
+  /** the argument the failure is about, as the user named it (`reagents`, `temperature`) */
+  argument: string;
+  /** 1-based row within a range argument */
+  row?: number;
+  /** what was received, as text */
+  received: string;
+  /** what would have been accepted */
+  expected: string;
+}
+
+export type Failure =
+  | (FailureFields & { code: 'unknown_reagent' })
+  | (FailureFields & { code: 'unknown_system' })
+  | (FailureFields & { code: 'bad_formula'; position: number })
+  | (FailureFields & { code: 'bad_unit' })
+  | (FailureFields & { code: 'bad_model' })
+  | (FailureFields & { code: 'bad_amount' })
+  | (FailureFields & { code: 'bad_argument' })
+  | (FailureFields & { code: 'shape_mismatch' })
+  | (FailureFields & { code: 'missing_volume' })
+  | (FailureFields & { code: 'out_of_range' })
+  | (FailureFields & { code: 'unreachable_target'; reason: string })
+  | (FailureFields & { code: 'no_convergence' });
+
+export type FailureCode = Failure['code'];
+
+/** Codes for a result that does not exist (`#N/A`); every other code is bad input (`#VALUE!`). */
+export const NOT_AVAILABLE_CODES: readonly FailureCode[] = ['unreachable_target'];
+
+const HEADLINES: Record<FailureCode, string> = {
+  unknown_reagent: 'unknown reagent',
+  unknown_system: 'unknown acid system',
+  bad_formula: 'not a chemical formula',
+  bad_unit: 'unit not allowed here',
+  bad_model: 'unknown activity model',
+  bad_amount: 'amount not usable',
+  bad_argument: 'value not usable',
+  shape_mismatch: 'ranges of different shapes',
+  missing_volume: 'final volume needed',
+  out_of_range: 'outside the range the data hold for',
+  unreachable_target: 'target cannot be reached',
+  no_convergence: 'the equilibrium did not converge',
+};
+
+/** The one place a failure becomes the sentence a user reads. */
+export function describeFailure(failure: Failure): string {
+  const where = failure.row === undefined ? failure.argument : `${failure.argument}, row ${failure.row}`;
+  const detail =
+    failure.code === 'bad_formula' ? ` at character ${failure.position}` :
+    failure.code === 'unreachable_target' ? `: ${failure.reason}` : '';
+  return `${where}: ${HEADLINES[failure.code]}${detail}. Received ${failure.received}; expected ${failure.expected}.`;
+}
+
+/** Thrown inside the engine and caught at the function layer; carries the failure as data. */
+export class ProticError extends Error {
+  readonly failure: Failure;
+  constructor(failure: Failure) {
+    super(describeFailure(failure));
+    this.name = 'ProticError';
+    this.failure = failure;
+  }
+}
+
+export function fail(failure: Failure): never {
+  throw new ProticError(failure);
+}
+
+/** Quotes a received value for a message, shortened so a 10,000-character cell stays readable. */
+export function quote(value: unknown): string {
+  if (value === null || value === undefined) return 'an empty cell';
+  if (typeof value === 'number') return Number.isFinite(value) ? String(value) : `the non-finite number ${String(value)}`;
+  const text = String(value);
+  if (text.trim() === '') return 'an empty text';
+  const short = text.length > 60 ? `${text.slice(0, 57)}...` : text;
+  return `"${short}"`;
+}

@@ -1,0 +1,33 @@
+// The engine's public surface: pure TypeScript, no Office, no DOM.
+export { ACTIVITY_MODELS, MODEL_LIMIT_MOLAL, ionicStrengthFactor, lnGammaPerZ2, parseModel } from './activity';
+export type { ActivityModel } from './activity';
+export { chargeBalance } from './chargeBalance';
+export type { BalanceOut } from './chargeBalance';
+export { NOT_AVAILABLE_CODES, ProticError, describeFailure, fail, quote } from './failure';
+export type { Failure, FailureCode } from './failure';
+export { compositionKey, compositionMassGPerMol, molarMassGPerMol, parseFormula, withoutHydrogens } from './formula';
+export type { Composition, ParsedFormula } from './formula';
+export { addReagent, buildContents, cloneContents, molesPerLitreDispensed, parseReagentSpec } from './mixture';
+export type { Contents, MixtureRow, ReagentSpec, RowAudit } from './mixture';
+export { checkSystemRange, lnKaAt, prepareProblem, prepareSystem, setActivity } from './problem';
+export type { PreparedSystem, Problem } from './problem';
+export { recipeForTarget } from './recipe';
+export type { RecipeLine } from './recipe';
+export {
+  allReagents, allSystems, molarMassOfReagent, normaliseName, registryGeneration, resolveReagent, resolveSystem,
+  setCustomDefinitions, systemFor,
+} from './registry';
+export type { ResolvedReagent } from './registry';
+export { bufferCapacity, modelWarning, speciesRows } from './results';
+export type { SpeciesRow } from './results';
+export { lnGammaZ2For, lnHFromPH, pHFromLnH, solve, solveFixedActivity, startingLnH } from './solver';
+export type { Equilibrium } from './solver';
+export { fractionsAt, systemMoments } from './speciation';
+export { dpKaPerK, pKaAt } from './temperature';
+export { litresPerMole, molesToUnit, titrantForTarget, titrantUnit, unitToMoles, withTitrant } from './titrant';
+export type { TitrantResult } from './titrant';
+export { UNIT_LIST, findUnit, parseUnit, splitStock } from './units';
+export type { Unit, UnitKind } from './units';
+export { WATER_RANGE_C, checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL, waterPermittivity } from './water';
+export { applyCustomDefinitions, clearCustomDefinitions } from './customSystems';
+export type { CustomFormDefinition, CustomSystemDefinition } from './customSystems';

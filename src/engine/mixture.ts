@@ -1,0 +1,116 @@
+import type { Reagent } from '../catalogue';
+import { fail, quote } from './failure';
+import { resolveReagent } from './registry';
+import type { ResolvedReagent } from './registry';
+import { parseUnit, splitStock } from './units';
+import type { Unit } from './units';
+
+/** One batch-record row: a reagent, an amount and its unit (row is 1-based, for messages). */
+export interface MixtureRow {
+  reagent: string;
+  amount: number;
+  unit: string;
+  row: number;
+}
+
+/** What a row puts into the solution. */
+export interface RowAudit {
+  row: number;
+  text: string;
+  reagent: Reagent;
+  /** moles of reagent formula units */
+  moles: number;
+  /** volume the row adds when it is a stock or liquid dispensed by volume, L */
+  volumeL: number;
+}
+
+/** Moles of each acid system and strong ion in a final volume. */
+export interface Contents {
+  systemMoles: Map<string, number>;
+  ionMoles: Map<string, number>;
+  volumeL: number;
+  rows: RowAudit[];
+}
+
+export interface ReagentSpec {
+  resolved: ResolvedReagent;
+  /** for a stock such as `1.2 M HCl`, its concentration in mol/L */
+  stockM?: number;
+}
+
+/** Parses a reagent cell: a stock (`0.5 M NaOH`) or a catalogue name or formula. */
+export function parseReagentSpec(text: string, argument: string, row?: number): ReagentSpec {
+  const stock = splitStock(text);
+  if (stock) {
+    if (!(stock.concentrationM > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
+    return { resolved: resolveReagent(stock.rest, argument, row), stockM: stock.concentrationM };
+  }
+  return { resolved: resolveReagent(text, argument, row) };
+}
+
+/** Moles per litre of what is dispensed by volume (stock or catalogue liquid), or undefined for a solid. */
+export function molesPerLitreDispensed(spec: ReagentSpec): number | undefined {
+  if (spec.stockM !== undefined) return spec.stockM;
+  const liquid = spec.resolved.reagent.liquid;
+  if (liquid) return (liquid.densityGPerML * 1000 * liquid.massFraction) / spec.resolved.molarMassGPerMol;
+  return undefined;
+}
+
+function rowMoles(spec: ReagentSpec, amount: number, unit: Unit, volumeL: number | undefined, row: MixtureRow): { moles: number; volumeL: number } {
+  const value = amount * unit.toBase;
+  switch (unit.kind) {
+    case 'mass':
+      if (spec.stockM !== undefined) fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit), expected: 'a volume (L mL µL) or an amount (mol mmol µmol) for a stock solution' });
+      return { moles: value / spec.resolved.molarMassGPerMol, volumeL: 0 };
+    case 'amount':
+      return { moles: value, volumeL: 0 };
+    case 'concentration':
+      return { moles: value * (volumeL ?? 1), volumeL: 0 };
+    case 'volume': {
+      const perL = molesPerLitreDispensed(spec);
+      if (perL === undefined) {
+        fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit),
+          expected: `a mass or amount for ${spec.resolved.reagent.name}, a solid; a volume needs a stock (1 M ...) or a liquid with a catalogue density` });
+      }
+      return { moles: value * perL, volumeL: value };
+    }
+  }
+}
+
+export function addReagent(contents: Contents, reagent: Reagent, moles: number): void {
+  for (const s of reagent.systems) contents.systemMoles.set(s.systemId, (contents.systemMoles.get(s.systemId) ?? 0) + moles * s.count);
+  for (const ion of reagent.ions) contents.ionMoles.set(ion.ionId, (contents.ionMoles.get(ion.ionId) ?? 0) + moles * ion.count);
+}
+
+/**
+ * Turns batch-record rows into moles in a final volume. The volume is needed when any row is a
+ * mass, an amount or a volume; with only concentrations none is; with only stock volumes (and
+ * concentrations) the volumes are added (additive-volume assumption).
+ */
+export function buildContents(rows: MixtureRow[], volumeL: number | undefined): Contents {
+  const parsed = rows.map((row) => ({ row, spec: parseReagentSpec(row.reagent, 'reagents', row.row), unit: parseUnit(row.unit, 'units', row.row) }));
+  let finalVolumeL = volumeL;
+  if (finalVolumeL === undefined) {
+    const needsVolume = parsed.find((p) => p.unit.kind === 'mass' || p.unit.kind === 'amount');
+    if (needsVolume) {
+      fail({ code: 'missing_volume', argument: 'volume', row: needsVolume.row.row, received: 'no volume',
+        expected: `the final volume in litres, because row ${needsVolume.row.row} is a ${needsVolume.unit.kind} (${needsVolume.unit.symbol})` });
+    }
+    const volumes = parsed.filter((p) => p.unit.kind === 'volume');
+    if (volumes.length > 0) finalVolumeL = volumes.reduce((sum, p) => sum + p.row.amount * p.unit.toBase, 0);
+  }
+  if (finalVolumeL !== undefined && !(finalVolumeL > 0)) {
+    fail({ code: 'bad_argument', argument: 'volume', received: `${finalVolumeL} L`, expected: 'a final volume above zero, in litres' });
+  }
+  const contents: Contents = { systemMoles: new Map(), ionMoles: new Map(), volumeL: finalVolumeL ?? 1, rows: [] };
+  for (const p of parsed) {
+    const { moles, volumeL: rowVolumeL } = rowMoles(p.spec, p.row.amount, p.unit, finalVolumeL, p.row);
+    addReagent(contents, p.spec.resolved.reagent, moles);
+    contents.rows.push({ row: p.row.row, text: p.row.reagent, reagent: p.spec.resolved.reagent, moles, volumeL: rowVolumeL });
+  }
+  return contents;
+}
+
+export function cloneContents(contents: Contents): Contents {
+  return { systemMoles: new Map(contents.systemMoles), ionMoles: new Map(contents.ionMoles), volumeL: contents.volumeL, rows: [...contents.rows] };
+}

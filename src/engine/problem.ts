@@ -1,0 +1,140 @@
+import type { AcidSystem } from '../catalogue';
+import { strongIonById } from '../catalogue';
+import { fail } from './failure';
+import type { ActivityModel } from './activity';
+import type { Contents } from './mixture';
+import { systemFor } from './registry';
+import { pKaAt } from './temperature';
+import { checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL } from './water';
+
+export interface PreparedSystem {
+  system: AcidSystem;
+  /** charge of the most protonated form */
+  z0: number;
+  /** thermodynamic ln Ka of each step at the problem's temperature */
+  lnKa: Float64Array;
+  /** conditional cumulative ln K (scratch, set by `setActivity`); lnCumK[0] = 0 */
+  lnCumK: Float64Array;
+}
+
+export interface PreparedIon {
+  id: string;
+  charge: number;
+  concentrationM: number;
+}
+
+/** An equilibrium problem at one temperature and activity model, in mol/L. */
+export interface Problem {
+  temperatureC: number;
+  model: ActivityModel;
+  /** Debye–Hückel A, molal scale */
+  debyeHuckelA: number;
+  lnWaterDensity: number;
+  lnKw: number;
+  systems: PreparedSystem[];
+  totalsM: Float64Array;
+  ions: PreparedIon[];
+  strongChargeM: number;
+  strongZ2M: number;
+  /** current ln γ per z² (scratch) */
+  lnGammaZ2: number;
+  /** current conditional ln Kw (scratch) */
+  lnKwc: number;
+  /** count of charge-balance evaluations, for benchmarks */
+  evaluations: number;
+}
+
+interface TemperatureConstants {
+  debyeHuckelA: number;
+  lnWaterDensity: number;
+  lnKw: number;
+}
+
+// Constants depend on temperature only: computed once per temperature and system.
+const waterCache = new Map<number, TemperatureConstants>();
+const lnKaCache = new Map<string, Float64Array>();
+
+function waterConstants(temperatureC: number): TemperatureConstants {
+  let c = waterCache.get(temperatureC);
+  if (!c) {
+    c = { debyeHuckelA: debyeHuckelA(temperatureC), lnWaterDensity: Math.log(waterDensityKgPerL(temperatureC)), lnKw: -pKw(temperatureC) * Math.LN10 };
+    if (waterCache.size > 10000) waterCache.clear();
+    waterCache.set(temperatureC, c);
+  }
+  return c;
+}
+
+export function checkSystemRange(system: AcidSystem, temperatureC: number, argument = 'temperature'): void {
+  const [lo, hi] = system.temperatureRangeC;
+  if (!(temperatureC >= lo && temperatureC <= hi)) {
+    fail({ code: 'out_of_range', argument, received: `${temperatureC} °C`, expected: `${lo} to ${hi} °C, the range the ${system.name} data hold for` });
+  }
+}
+
+export function lnKaAt(system: AcidSystem, temperatureC: number): Float64Array {
+  const key = `${system.id}${system.custom ? '*' : ''}@${temperatureC}`;
+  let lnKa = lnKaCache.get(key);
+  if (!lnKa || system.custom) {
+    lnKa = Float64Array.from(system.steps, (step) => -pKaAt(step, temperatureC) * Math.LN10);
+    if (lnKaCache.size > 50000) lnKaCache.clear();
+    lnKaCache.set(key, lnKa);
+  }
+  return lnKa;
+}
+
+export function prepareSystem(system: AcidSystem, temperatureC: number): PreparedSystem {
+  return { system, z0: system.chargeMostProtonated, lnKa: lnKaAt(system, temperatureC), lnCumK: new Float64Array(system.steps.length + 1) };
+}
+
+export function prepareProblem(contents: Contents, temperatureC: number, model: ActivityModel): Problem {
+  checkWaterRange(temperatureC);
+  const water = waterConstants(temperatureC);
+  const systems: PreparedSystem[] = [];
+  const totals: number[] = [];
+  for (const [id, moles] of contents.systemMoles) {
+    const system = systemFor(id);
+    checkSystemRange(system, temperatureC);
+    systems.push(prepareSystem(system, temperatureC));
+    totals.push(moles / contents.volumeL);
+  }
+  const ions: PreparedIon[] = [];
+  for (const [id, moles] of contents.ionMoles) {
+    const ion = strongIonById(id);
+    if (!ion) throw new Error(`catalogue inconsistency: no ion ${id}`);
+    ions.push({ id, charge: ion.charge, concentrationM: moles / contents.volumeL });
+  }
+  const problem: Problem = {
+    temperatureC, model, debyeHuckelA: water.debyeHuckelA, lnWaterDensity: water.lnWaterDensity, lnKw: water.lnKw,
+    systems, totalsM: Float64Array.from(totals), ions, strongChargeM: 0, strongZ2M: 0, lnGammaZ2: 0, lnKwc: 0, evaluations: 0,
+  };
+  updateIonSums(problem);
+  setActivity(problem, 0);
+  return problem;
+}
+
+export function updateIonSums(problem: Problem): void {
+  let charge = 0, z2 = 0;
+  for (const ion of problem.ions) {
+    charge += ion.charge * ion.concentrationM;
+    z2 += ion.charge * ion.charge * ion.concentrationM;
+  }
+  problem.strongChargeM = charge;
+  problem.strongZ2M = z2;
+}
+
+/** Sets the conditional constants for ln γ = z² · lnGammaZ2 (molal constants, m = c/ρw). */
+export function setActivity(problem: Problem, lnGammaZ2: number): void {
+  problem.lnGammaZ2 = lnGammaZ2;
+  const lnRho = problem.lnWaterDensity;
+  for (const s of problem.systems) {
+    let cum = 0;
+    s.lnCumK[0] = 0;
+    for (let k = 1; k < s.lnCumK.length; k++) {
+      const zBefore = s.z0 - (k - 1);
+      const zAfter = s.z0 - k;
+      cum += s.lnKa[k - 1] + lnRho + lnGammaZ2 * (zBefore * zBefore - 1 - zAfter * zAfter);
+      s.lnCumK[k] = cum;
+    }
+  }
+  problem.lnKwc = problem.lnKw + 2 * lnRho - 2 * lnGammaZ2;
+}

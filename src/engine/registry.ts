@@ -1,0 +1,143 @@
+import { ACID_SYSTEMS, REAGENTS } from '../catalogue';
+import type { AcidSystem, Reagent } from '../catalogue';
+import { fail, ProticError, quote } from './failure';
+import { compositionKey, compositionMassGPerMol, looksLikeFormula, parseFormula } from './formula';
+import type { ParsedFormula } from './formula';
+
+// The catalogue plus any custom systems the workbook or a --systems file defined.
+let customSystems: AcidSystem[] = [];
+let customReagents: Reagent[] = [];
+let generation = 0;
+
+/** Changes whenever custom definitions change, so caches keyed on it stay honest. */
+export function registryGeneration(): number {
+  return generation;
+}
+
+export function setCustomDefinitions(systems: AcidSystem[], reagents: Reagent[]): void {
+  customSystems = systems;
+  customReagents = reagents;
+  generation++;
+  nameIndex = undefined;
+}
+
+export function allSystems(): readonly AcidSystem[] {
+  return customSystems.length === 0 ? ACID_SYSTEMS : [...ACID_SYSTEMS, ...customSystems];
+}
+
+export function allReagents(): readonly Reagent[] {
+  return customReagents.length === 0 ? REAGENTS : [...REAGENTS, ...customReagents];
+}
+
+export function normaliseName(text: string): string {
+  return text.trim().toLowerCase().replace(/\s+/g, ' ').replace(/ %/g, '%').replace(/[–—]/g, '-');
+}
+
+let nameIndex: Map<string, Reagent> | undefined;
+
+function reagentNameIndex(): Map<string, Reagent> {
+  if (nameIndex) return nameIndex;
+  const index = new Map<string, Reagent>();
+  for (const reagent of allReagents()) {
+    for (const name of [reagent.name, ...reagent.aliases]) {
+      const key = normaliseName(name);
+      if (!index.has(key)) index.set(key, reagent);
+    }
+  }
+  nameIndex = index;
+  return index;
+}
+
+const systemById = new Map<string, AcidSystem>(ACID_SYSTEMS.map((s) => [s.id, s]));
+
+export function systemFor(id: string): AcidSystem {
+  const builtin = systemById.get(id);
+  if (builtin) return builtin;
+  const custom = customSystems.find((s) => s.id === id);
+  if (!custom) throw new Error(`catalogue inconsistency: no system ${id}`);
+  return custom;
+}
+
+export interface ResolvedReagent {
+  reagent: Reagent;
+  /** molar mass of what is weighed, including its hydrate water, g/mol */
+  molarMassGPerMol: number;
+  hydrateWater: number;
+  /** how the reagent was recognised, for the audit trail */
+  matchedBy: 'name' | 'formula';
+}
+
+function reagentMolarMass(reagent: Reagent): number {
+  const parsed = parseFormula(reagent.formula, 'catalogue');
+  return compositionMassGPerMol(parsed.composition) + reagent.hydrateWater * compositionMassGPerMol({ H: 2, O: 1 });
+}
+
+const molarMassCache = new Map<Reagent, number>();
+export function molarMassOfReagent(reagent: Reagent): number {
+  let mass = molarMassCache.get(reagent);
+  if (mass === undefined) {
+    mass = reagentMolarMass(reagent);
+    molarMassCache.set(reagent, mass);
+  }
+  return mass;
+}
+
+let formulaIndex: Map<string, Reagent[]> | undefined;
+let formulaIndexGeneration = -1;
+function reagentFormulaIndex(): Map<string, Reagent[]> {
+  if (formulaIndex && formulaIndexGeneration === generation) return formulaIndex;
+  const index = new Map<string, Reagent[]>();
+  for (const reagent of allReagents()) {
+    const key = compositionKey(parseFormula(reagent.formula, 'catalogue').anhydrous);
+    index.set(key, [...(index.get(key) ?? []), reagent]);
+  }
+  formulaIndex = index;
+  formulaIndexGeneration = generation;
+  return index;
+}
+
+/** Finds a reagent by formula: the anhydrous part must match; any hydrate water is taken as written. */
+export function reagentByFormula(parsed: ParsedFormula): Reagent | undefined {
+  const candidates = reagentFormulaIndex().get(compositionKey(parsed.anhydrous)) ?? [];
+  const solids = candidates.filter((c) => !c.liquid);
+  const pool = solids.length > 0 ? solids : candidates;
+  return pool.find((c) => c.hydrateWater === parsed.hydrateWater) ?? pool[0];
+}
+
+/** Resolves a catalogue name, alias or formula to a reagent. */
+export function resolveReagent(text: string, argument: string, row?: number): ResolvedReagent {
+  const byName = reagentNameIndex().get(normaliseName(text));
+  if (byName) {
+    return { reagent: byName, molarMassGPerMol: molarMassOfReagent(byName), hydrateWater: byName.hydrateWater, matchedBy: 'name' };
+  }
+  if (looksLikeFormula(text)) {
+    const parsed = parseFormula(text, argument, row);
+    const reagent = reagentByFormula(parsed);
+    if (reagent) {
+      return { reagent, molarMassGPerMol: compositionMassGPerMol(parsed.composition), hydrateWater: parsed.hydrateWater, matchedBy: 'formula' };
+    }
+  }
+  fail({
+    code: 'unknown_reagent', argument, row, received: quote(text),
+    expected: 'a catalogue name or alias (sodium acetate trihydrate, Tris), a formula (Na2HPO4·7H2O) or a stock such as 1 M HCl; the pane lists the catalogue',
+  });
+}
+
+/** Resolves a system name, alias, id, or any reagent of that system. */
+export function resolveSystem(value: unknown, argument = 'system'): AcidSystem {
+  const text = typeof value === 'string' ? value : '';
+  const key = normaliseName(text);
+  if (key !== '') {
+    for (const system of allSystems()) {
+      if (system.id === key || normaliseName(system.name) === key || system.aliases.some((a) => normaliseName(a) === key)) return system;
+    }
+    try {
+      const resolved = resolveReagent(text, argument);
+      if (resolved.reagent.systems.length > 0) return systemFor(resolved.reagent.systems[0].systemId);
+    } catch (error) {
+      // not a reagent either: the failure below names systems instead
+      if (!(error instanceof ProticError)) throw error;
+    }
+  }
+  fail({ code: 'unknown_system', argument, received: quote(value), expected: 'a system name (phosphate, citrate, Tris, ...) or a reagent of that system' });
+}

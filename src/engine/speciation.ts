@@ -1,0 +1,43 @@
+// The distribution of one acid system over its forms, in a numerically stable form:
+// log-weights are shifted by their maximum before exponentiation, so totals from 1e-12 to
+// 10 mol/L and pH −1 to 15 neither overflow nor lose the small fractions.
+
+/** Moments of the number of protons lost, written by `systemMoments` (no allocation per call). */
+export interface Moments {
+  /** mean number of protons lost */
+  mean: number;
+  /** variance of the number of protons lost (d mean / d ln h = −variance) */
+  variance: number;
+}
+
+/**
+ * `lnCumK[j]` = Σ_{k≤j} ln Kc_k (lnCumK[0] = 0); `lnProton` = ln of the proton variable the
+ * constants are expressed in. Fills `fractions` (length n+1) when given.
+ */
+export function systemMoments(lnCumK: Float64Array, lnProton: number, out: Moments, fractions?: Float64Array): void {
+  const n = lnCumK.length - 1;
+  let maxLog = -Infinity;
+  for (let j = 0; j <= n; j++) {
+    const logWeight = lnCumK[j] - j * lnProton;
+    if (logWeight > maxLog) maxLog = logWeight;
+  }
+  let sum = 0, sumJ = 0, sumJ2 = 0;
+  for (let j = 0; j <= n; j++) {
+    const w = Math.exp(lnCumK[j] - j * lnProton - maxLog);
+    sum += w;
+    sumJ += j * w;
+    sumJ2 += j * j * w;
+    if (fractions) fractions[j] = w;
+  }
+  const mean = sumJ / sum;
+  out.mean = mean;
+  out.variance = Math.max(0, sumJ2 / sum - mean * mean);
+  if (fractions) for (let j = 0; j <= n; j++) fractions[j] /= sum;
+}
+
+/** Fractions of each form, most protonated first, for cumulative ln-constants and ln(proton variable). */
+export function fractionsAt(lnCumK: Float64Array, lnProton: number): number[] {
+  const fractions = new Float64Array(lnCumK.length);
+  systemMoments(lnCumK, lnProton, { mean: 0, variance: 0 }, fractions);
+  return Array.from(fractions);
+}

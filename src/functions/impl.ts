@@ -1,0 +1,216 @@
+import { ADDIN_VERSION, CATALOGUE_VERSION } from '../catalogue';
+import {
+  bufferCapacity, buildContents, checkSystemRange, checkWaterRange, debyeHuckelA, fail, fractionsAt, lnGammaPerZ2, lnKaAt,
+  modelWarning, molarMassGPerMol, molarMassOfReagent, molesToUnit, normaliseName, parseModel, parseReagentSpec,
+  pKaAt, prepareProblem, quote, recipeForTarget, registryGeneration, resolveSystem, speciesRows, solve,
+  titrantForTarget, titrantUnit, unitToMoles, waterDensityKgPerL, withTitrant, allReagents,
+} from '../engine';
+import type { ActivityModel, Contents, Equilibrium, MixtureRow } from '../engine';
+import {
+  IONIC_STRENGTH_RULE, PH_RULE, TEMPERATURE_RULE, VOLUME_RULE, mixtureRows, optionalNumber, requiredNumber, requiredText,
+} from './args';
+import type { Cell } from './args';
+
+// The cell functions as plain TypeScript: Excel's wrappers (functions.ts) and the headless
+// sheet runner call these same implementations. They throw ProticError for bad input.
+
+export type CellScalar = number | string;
+export type CellResult = CellScalar | CellScalar[][];
+
+// Parsed mixtures and solved equilibria, keyed on their content, so that a table of cells
+// that repeat a mixture does the parsing and solving once.
+const CACHE_LIMIT = 5000;
+const contentsCache = new Map<string, Contents>();
+const equilibriumCache = new Map<string, Equilibrium>();
+
+function remember<T>(cache: Map<string, T>, key: string, make: () => T): T {
+  const hit = cache.get(key);
+  if (hit !== undefined) return hit;
+  const value = make();
+  if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value as string);
+  cache.set(key, value);
+  return value;
+}
+
+function rowsKey(rows: MixtureRow[], volumeL: number | undefined): string {
+  let key = `${registryGeneration()}|${volumeL}`;
+  for (const r of rows) key += `|${r.reagent}\u0000${r.amount}\u0000${r.unit}\u0000${r.row}`;
+  return key;
+}
+
+interface MixtureArgs {
+  rows: MixtureRow[];
+  volumeL: number | undefined;
+  temperatureC: number;
+  model: ActivityModel;
+}
+
+function readMixture(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, temperature: Cell, model: Cell): MixtureArgs {
+  return {
+    rows: mixtureRows(reagents, amounts, units),
+    volumeL: optionalNumber(volume, 'volume', undefined, VOLUME_RULE),
+    temperatureC: optionalNumber(temperature, 'temperature', 25, TEMPERATURE_RULE),
+    model: parseModel(model),
+  };
+}
+
+function contentsOf(rows: MixtureRow[], volumeL: number | undefined): Contents {
+  return remember(contentsCache, rowsKey(rows, volumeL), () => buildContents(rows, volumeL));
+}
+
+function equilibriumOf(m: MixtureArgs): Equilibrium {
+  const key = `${rowsKey(m.rows, m.volumeL)}|${m.temperatureC}|${m.model}`;
+  return remember(equilibriumCache, key, () => solve(prepareProblem(contentsOf(m.rows, m.volumeL), m.temperatureC, m.model)));
+}
+
+/** The last guard before a number reaches a cell: never NaN or Infinity. */
+function finite(value: number, what: string): number {
+  if (!Number.isFinite(value)) fail({ code: 'no_convergence', argument: what, received: String(value), expected: 'a finite result; please report this input' });
+  return value;
+}
+
+export function ph(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
+  return finite(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model)).pH, 'pH');
+}
+
+export function ionicStrength(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
+  return finite(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model)).ionicStrengthM, 'ionic strength');
+}
+
+export function capacity(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
+  return finite(bufferCapacity(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model))), 'buffer capacity');
+}
+
+export const SPECIES_HEADER = ['species', 'charge', 'concentration (mol/L)', 'activity coefficient', 'activity'];
+
+export function species(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): CellScalar[][] {
+  const m = readMixture(reagents, amounts, units, volume, temperature, model);
+  const eq = equilibriumOf(m);
+  const table: CellScalar[][] = [SPECIES_HEADER];
+  for (const s of speciesRows(eq)) table.push([s.species, s.charge, finite(s.concentrationM, s.species), finite(s.activityCoefficient, s.species), finite(s.activity, s.species)]);
+  const warning = modelWarning(eq);
+  table.push(['pH', finite(eq.pH, 'pH'), '', '', '']);
+  table.push(['ionic strength (mol/L)', finite(eq.ionicStrengthM, 'ionic strength'), '', '', '']);
+  table.push(['charge-balance residual (relative)', finite(eq.residualRelative, 'residual'), '', '', '']);
+  table.push(['model', `${m.model}, ${m.temperatureC} °C`, '', '', '']);
+  table.push(['warning', warning === '' ? 'none' : warning, '', '', '']);
+  return table;
+}
+
+function requiredVolume(volume: Cell): number {
+  const v = optionalNumber(volume, 'volume', undefined, VOLUME_RULE);
+  if (v === undefined) fail({ code: 'missing_volume', argument: 'volume', received: 'an empty cell', expected: "the mixture's volume in litres before the titrant goes in" });
+  return v;
+}
+
+export function titrant(targetPH: Cell, reagents: Cell, amounts: Cell, units: Cell, volume: Cell, titrantText: Cell,
+  temperature?: Cell, model?: Cell, resultUnit?: Cell): number {
+  const target = requiredNumber(targetPH, 'targetPH', PH_RULE);
+  const m = readMixture(reagents, amounts, units, null, temperature, model);
+  const volumeL = requiredVolume(volume);
+  const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant');
+  const unit = titrantUnit(resultUnit, spec, 'resultUnit');
+  const result = titrantForTarget(target, contentsOf(m.rows, volumeL), spec, m.temperatureC, m.model);
+  return finite(molesToUnit(result.moles, spec, unit), 'titrant');
+}
+
+export function curve(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, titrantText: Cell, maxAmount: Cell,
+  points?: Cell, temperature?: Cell, model?: Cell, resultUnit?: Cell): CellScalar[][] {
+  const m = readMixture(reagents, amounts, units, null, temperature, model);
+  const volumeL = requiredVolume(volume);
+  const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant');
+  const max = requiredNumber(maxAmount, 'maxAmount', { min: 0, max: 1e9, expected: 'the largest titrant amount, above zero, in resultUnit' });
+  if (max === 0) fail({ code: 'bad_argument', argument: 'maxAmount', received: '0', expected: 'the largest titrant amount, above zero, in resultUnit' });
+  const n = optionalNumber(points, 'points', 51, { min: 2, max: 1001, integer: true, expected: 'a whole number of points from 2 to 1001 (default 51)' });
+  const unit = titrantUnit(resultUnit, spec, 'resultUnit');
+  const contents = contentsOf(m.rows, volumeL);
+  const out: CellScalar[][] = [];
+  for (let i = 0; i < n; i++) {
+    const amount = (max * i) / (n - 1);
+    const eq = withTitrant(contents, spec, unitToMoles(amount, spec, unit), m.temperatureC, m.model);
+    out.push([amount, finite(eq.pH, 'pH')]);
+  }
+  return out;
+}
+
+function temperatureFor(temperature: Cell): number {
+  return optionalNumber(temperature, 'temperature', 25, TEMPERATURE_RULE);
+}
+
+export function fractions(system: Cell, pH: Cell, temperature?: Cell, ionicStrengthArg?: Cell): number[][] {
+  const sys = resolveSystem(Array.isArray(system) ? toSingle(system) : system);
+  const pHValue = requiredNumber(pH, 'pH', PH_RULE);
+  const temperatureC = temperatureFor(temperature);
+  checkWaterRange(temperatureC);
+  checkSystemRange(sys, temperatureC);
+  const ionic = optionalNumber(ionicStrengthArg, 'ionicStrength', 0, IONIC_STRENGTH_RULE);
+  const lnKa = lnKaAt(sys, temperatureC);
+  const lnG = lnGammaPerZ2('davies', ionic / waterDensityKgPerL(temperatureC), debyeHuckelA(temperatureC));
+  // [A]/[HA] = Ka γ(HA) / (a(H⁺) γ(A)), with ln γ = z² lnG
+  const cum = new Float64Array(lnKa.length + 1);
+  for (let k = 1; k <= lnKa.length; k++) {
+    const zBefore = sys.chargeMostProtonated - (k - 1), zAfter = zBefore - 1;
+    cum[k] = cum[k - 1] + lnKa[k - 1] + lnG * (zBefore * zBefore - zAfter * zAfter);
+  }
+  return [fractionsAt(cum, -pHValue * Math.LN10).map((f) => finite(f, 'fraction'))];
+}
+
+function toSingle(value: Cell[]): Cell {
+  const flat = (value as Cell[][]).flat ? (value as Cell[][]).flat() : value;
+  if (flat.length !== 1) fail({ code: 'shape_mismatch', argument: 'system', received: `a range of ${flat.length} cells`, expected: 'a single cell' });
+  return flat[0];
+}
+
+export function pka(system: Cell, step: Cell, temperature?: Cell, ionicStrengthArg?: Cell): number {
+  const sys = resolveSystem(Array.isArray(system) ? toSingle(system) : system);
+  const n = sys.steps.length;
+  const k = requiredNumber(step, 'step', { min: 1, max: n, integer: true, expected: `a step from 1 to ${n} for ${sys.name} (1 = first proton lost)` });
+  const temperatureC = temperatureFor(temperature);
+  checkWaterRange(temperatureC);
+  checkSystemRange(sys, temperatureC);
+  const ionic = optionalNumber(ionicStrengthArg, 'ionicStrength', 0, IONIC_STRENGTH_RULE);
+  const thermodynamic = pKaAt(sys.steps[k - 1], temperatureC);
+  if (ionic === 0) return finite(thermodynamic, 'pKa');
+  // apparent pKa' = pH − log10([A]/[HA]) = pKa + log10 γ(A) − log10 γ(HA)
+  const lnG = lnGammaPerZ2('davies', ionic / waterDensityKgPerL(temperatureC), debyeHuckelA(temperatureC));
+  const zAcid = sys.chargeMostProtonated - (k - 1), zBase = zAcid - 1;
+  return finite(thermodynamic + (lnG * (zBase * zBase - zAcid * zAcid)) / Math.LN10, 'pKa');
+}
+
+export function recipe(acidForm: Cell, baseForm: Cell, targetPH: Cell, concentration: Cell, volume: Cell, temperature?: Cell, model?: Cell,
+  otherReagents?: Cell, otherAmounts?: Cell, otherUnits?: Cell): CellScalar[][] {
+  const acid = parseReagentSpec(requiredText(acidForm, 'acidForm', 'the acid form, e.g. NaH2PO4·H2O'), 'acidForm');
+  const base = parseReagentSpec(requiredText(baseForm, 'baseForm', 'the base form, e.g. Na2HPO4·7H2O'), 'baseForm');
+  const target = requiredNumber(targetPH, 'targetPH', PH_RULE);
+  const concentrationM = requiredNumber(concentration, 'concentration', { min: 1e-9, max: 10, expected: 'the total buffer concentration in mol/L, above zero' });
+  const volumeL = requiredNumber(volume, 'volume', VOLUME_RULE);
+  const temperatureC = temperatureFor(temperature);
+  const activityModel = parseModel(model);
+  const hasOthers = !(otherReagents === null || otherReagents === undefined || otherReagents === '');
+  const rows = hasOthers
+    ? mixtureRows(otherReagents, otherAmounts ?? null, otherUnits ?? null, { reagents: 'otherReagents', amounts: 'otherAmounts', units: 'otherUnits' })
+    : [];
+  const others = rows.length > 0 ? contentsOf(rows, volumeL) : { systemMoles: new Map(), ionMoles: new Map(), volumeL, rows: [] };
+  checkWaterRange(temperatureC);
+  const lines = recipeForTarget(acid, base, target, concentrationM, volumeL, others, temperatureC, activityModel);
+  return lines.map((line, i) => {
+    const name = (i === 0 ? acidForm : baseForm) as string;
+    const label = line.unit === 'g' ? name.trim() : `${name.trim()} (mL)`;
+    return [label, finite(line.amount, 'amount')];
+  });
+}
+
+export function molarMass(formula: Cell): number {
+  const text = requiredText(formula, 'formula', 'a formula such as Na2HPO4·7H2O, or a catalogue name');
+  const key = normaliseName(text);
+  const byName = allReagents().find((r) => normaliseName(r.name) === key || r.aliases.some((a) => normaliseName(a) === key));
+  if (byName && !byName.liquid) return molarMassOfReagent(byName);
+  return finite(molarMassGPerMol(text, 'formula'), 'molar mass');
+}
+
+export function version(): string {
+  return `Protic ${ADDIN_VERSION}; catalogue ${CATALOGUE_VERSION}`;
+}
+
+/** For messages about a received argument, shared with the wrappers. */
+export { quote };
