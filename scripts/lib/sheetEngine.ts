@@ -168,7 +168,7 @@ export type SheetValue = number | string | boolean | null | { error: string; mes
 export function evaluateSheet(cells: RawCellContent[][]): SheetValue[][] {
   register();
   rawGrid = cells;
-  const hf = HyperFormula.buildFromArray(cells, { licenseKey: 'gpl-v3', maxRows: 1_100_000, smartRounding: false });
+  const hf = HyperFormula.buildFromArray(cells, { licenseKey: 'gpl-v3', maxRows: 1_100_000, smartRounding: false, useArrayArithmetic: true });
   try {
     const values = hf.getSheetValues(0);
     return values.map((row) => row.map((v) => (v instanceof DetailedCellError ? { error: v.value, message: v.message } : (v as SheetValue))));

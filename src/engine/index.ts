@@ -14,7 +14,7 @@ export type { PreparedSystem, Problem } from './problem';
 export { recipeForTarget } from './recipe';
 export type { RecipeLine } from './recipe';
 export {
-  allReagents, allSystems, molarMassOfReagent, normaliseName, registryGeneration, resolveReagent, resolveSystem,
+  allReagents, allSystems, customSystems, molarMassOfReagent, normaliseName, registryGeneration, resolveReagent, resolveSystem,
   setCustomDefinitions, systemFor,
 } from './registry';
 export type { ResolvedReagent } from './registry';

@@ -4,29 +4,35 @@ import { fail, ProticError, quote } from './failure';
 import { compositionKey, compositionMassGPerMol, looksLikeFormula, parseFormula } from './formula';
 import type { ParsedFormula } from './formula';
 
-// The catalogue plus any custom systems the workbook or a --systems file defined.
-let customSystems: AcidSystem[] = [];
-let customReagents: Reagent[] = [];
-let generation = 0;
+// The catalogue plus any custom systems the workbook or a --systems file defined. The custom
+// part lives on globalThis so that the functions and pane bundles, which share one runtime in
+// Excel, see the same definitions.
+interface CustomStore { systems: AcidSystem[]; reagents: Reagent[]; generation: number }
+const STORE_KEY = '__proticCustomDefinitions';
+const store: CustomStore = ((globalThis as Record<string, unknown>)[STORE_KEY] as CustomStore | undefined)
+  ?? ((globalThis as Record<string, unknown>)[STORE_KEY] = { systems: [], reagents: [], generation: 0 }) as CustomStore;
 
 /** Changes whenever custom definitions change, so caches keyed on it stay honest. */
 export function registryGeneration(): number {
-  return generation;
+  return store.generation;
 }
 
 export function setCustomDefinitions(systems: AcidSystem[], reagents: Reagent[]): void {
-  customSystems = systems;
-  customReagents = reagents;
-  generation++;
-  nameIndex = undefined;
+  store.systems = systems;
+  store.reagents = reagents;
+  store.generation++;
+}
+
+export function customSystems(): readonly AcidSystem[] {
+  return store.systems;
 }
 
 export function allSystems(): readonly AcidSystem[] {
-  return customSystems.length === 0 ? ACID_SYSTEMS : [...ACID_SYSTEMS, ...customSystems];
+  return store.systems.length === 0 ? ACID_SYSTEMS : [...ACID_SYSTEMS, ...store.systems];
 }
 
 export function allReagents(): readonly Reagent[] {
-  return customReagents.length === 0 ? REAGENTS : [...REAGENTS, ...customReagents];
+  return store.reagents.length === 0 ? REAGENTS : [...REAGENTS, ...store.reagents];
 }
 
 export function normaliseName(text: string): string {
@@ -34,9 +40,10 @@ export function normaliseName(text: string): string {
 }
 
 let nameIndex: Map<string, Reagent> | undefined;
+let nameIndexGeneration = -1;
 
 function reagentNameIndex(): Map<string, Reagent> {
-  if (nameIndex) return nameIndex;
+  if (nameIndex && nameIndexGeneration === store.generation) return nameIndex;
   const index = new Map<string, Reagent>();
   for (const reagent of allReagents()) {
     for (const name of [reagent.name, ...reagent.aliases]) {
@@ -45,6 +52,7 @@ function reagentNameIndex(): Map<string, Reagent> {
     }
   }
   nameIndex = index;
+  nameIndexGeneration = store.generation;
   return index;
 }
 
@@ -53,7 +61,7 @@ const systemById = new Map<string, AcidSystem>(ACID_SYSTEMS.map((s) => [s.id, s]
 export function systemFor(id: string): AcidSystem {
   const builtin = systemById.get(id);
   if (builtin) return builtin;
-  const custom = customSystems.find((s) => s.id === id);
+  const custom = store.systems.find((s) => s.id === id);
   if (!custom) throw new Error(`catalogue inconsistency: no system ${id}`);
   return custom;
 }
@@ -85,14 +93,14 @@ export function molarMassOfReagent(reagent: Reagent): number {
 let formulaIndex: Map<string, Reagent[]> | undefined;
 let formulaIndexGeneration = -1;
 function reagentFormulaIndex(): Map<string, Reagent[]> {
-  if (formulaIndex && formulaIndexGeneration === generation) return formulaIndex;
+  if (formulaIndex && formulaIndexGeneration === store.generation) return formulaIndex;
   const index = new Map<string, Reagent[]>();
   for (const reagent of allReagents()) {
     const key = compositionKey(parseFormula(reagent.formula, 'catalogue').anhydrous);
     index.set(key, [...(index.get(key) ?? []), reagent]);
   }
   formulaIndex = index;
-  formulaIndexGeneration = generation;
+  formulaIndexGeneration = store.generation;
   return index;
 }
 

@@ -190,8 +190,5 @@ function VERSION(): string {
   return run(() => impl.version());
 }
 
+// The metadata plugin's loader appends CustomFunctions.associate for each @customfunction above.
 export const EXCEL_FUNCTIONS = { PH, TITRANT, CURVE, FRACTIONS, SPECIES, IONICSTRENGTH, CAPACITY, PKA, RECIPE, MOLARMASS, VERSION };
-
-if (typeof CustomFunctions !== 'undefined') {
-  for (const [id, fn] of Object.entries(EXCEL_FUNCTIONS)) CustomFunctions.associate(id, fn);
-}

@@ -1,0 +1,74 @@
+import type { AcidSystem } from '../catalogue';
+import {
+  allReagents, allSystems, compositionMassGPerMol, debyeHuckelA, dpKaPerK, lnGammaPerZ2, molarMassOfReagent, normaliseName, parseFormula,
+  pKaAt, systemFor, waterDensityKgPerL, withoutHydrogens,
+} from '../engine';
+
+// What the pane shows of the catalogue, as plain data (no DOM), so it can be tested in Node.
+
+export interface SearchHit {
+  kind: 'system' | 'reagent';
+  systemId: string;
+  label: string;
+  detail: string;
+}
+
+function matches(query: string, ...texts: string[]): boolean {
+  const q = normaliseName(query).replace(/[·.*]/g, '');
+  if (q === '') return true;
+  return texts.some((t) => normaliseName(t).replace(/[·.*]/g, '').includes(q));
+}
+
+/** Systems and reagents whose name, alias or formula contains the query; optionally only systems with a pKa within ±1 of a pH. */
+export function searchCatalogue(query: string, nearPH?: number, temperatureC = 25): SearchHit[] {
+  const near = (system: AcidSystem): boolean =>
+    nearPH === undefined || system.steps.some((s) => Math.abs(pKaAt(s, temperatureC) - nearPH) <= 1);
+  const hits: SearchHit[] = [];
+  for (const s of allSystems()) {
+    if (!near(s)) continue;
+    if (matches(query, s.name, s.id, ...s.aliases)) {
+      hits.push({ kind: 'system', systemId: s.id, label: s.name, detail: `pKa ${s.steps.map((st) => pKaAt(st, temperatureC).toFixed(2)).join(', ')}` });
+    }
+  }
+  for (const r of allReagents()) {
+    const systemId = r.systems[0]?.systemId;
+    if (!systemId || !near(systemFor(systemId))) continue;
+    const formula = r.hydrateWater > 0 ? `${r.formula}·${r.hydrateWater}H2O` : r.formula;
+    if (matches(query, r.name, formula, ...r.aliases)) {
+      hits.push({ kind: 'reagent', systemId, label: r.name, detail: `${formula}, ${molarMassOfReagent(r).toFixed(2)} g/mol` });
+    }
+  }
+  return hits.slice(0, 60);
+}
+
+export interface StepView { step: number; pKa: number; apparentPKa: number; dpKaPerK: number; source: string }
+export interface FormView { label: string; charge: number; molarMassGPerMol?: number }
+export interface ReagentView { name: string; formula: string; molarMassGPerMol: number }
+export interface SystemView {
+  id: string;
+  name: string;
+  steps: StepView[];
+  forms: FormView[];
+  reagents: ReagentView[];
+  rangeC: [number, number];
+  notes: string;
+}
+
+export function systemView(systemId: string, temperatureC: number, ionicStrengthM: number): SystemView {
+  const s = systemFor(systemId);
+  const lnG = lnGammaPerZ2('davies', ionicStrengthM / waterDensityKgPerL(temperatureC), debyeHuckelA(temperatureC));
+  const steps = s.steps.map((st, i) => {
+    const zAcid = s.chargeMostProtonated - i, zBase = zAcid - 1;
+    const pKa = pKaAt(st, temperatureC);
+    return { step: i + 1, pKa, apparentPKa: pKa + (lnG * (zBase * zBase - zAcid * zAcid)) / Math.LN10, dpKaPerK: dpKaPerK(st, temperatureC), source: st.source };
+  });
+  const top = s.formulaMostProtonated ? parseFormula(s.formulaMostProtonated).composition : undefined;
+  const forms = s.forms.map((label, j) => ({
+    label, charge: s.chargeMostProtonated - j,
+    molarMassGPerMol: top ? compositionMassGPerMol(withoutHydrogens(top, j)) : undefined,
+  }));
+  const reagents = allReagents().filter((r) => r.systems.some((x) => x.systemId === s.id)).map((r) => ({
+    name: r.name, formula: r.hydrateWater > 0 ? `${r.formula}·${r.hydrateWater}H2O` : r.formula, molarMassGPerMol: molarMassOfReagent(r),
+  }));
+  return { id: s.id, name: s.name, steps, forms, reagents, rangeC: s.temperatureRangeC, notes: s.notes ?? '' };
+}

@@ -1,0 +1,62 @@
+import { ProticError, describeFailure } from '../src/engine';
+import type { FailureCode } from '../src/engine';
+import * as impl from '../src/functions/impl';
+import { toCellFailure } from '../src/functions/outcome';
+
+function failureOf(run: () => unknown): { code: FailureCode; message: string; kind: string } {
+  try {
+    run();
+  } catch (error) {
+    expect(error).toBeInstanceOf(ProticError);
+    const f = (error as ProticError).failure;
+    expect((error as ProticError).message).toBe(describeFailure(f));
+    return { code: f.code, message: (error as Error).message, kind: toCellFailure(error).kind };
+  }
+  throw new Error('expected a failure');
+}
+
+const P = ['KH2PO4', 'Na2HPO4'];
+const G = [3.4, 3.55];
+
+describe('every failure code, with the message a user reads', () => {
+  test.each<[FailureCode, () => unknown, RegExp, string]>([
+    ['unknown_reagent', () => impl.ph([['unobtainium']], [[1]], 'g', 1), /reagents, row 1: unknown reagent\. Received "unobtainium"; expected a catalogue name/, '#VALUE!'],
+    ['unknown_system', () => impl.fractions('zircon', 7), /system: unknown acid system\. Received "zircon"/, '#VALUE!'],
+    ['bad_formula', () => impl.molarMass('Na2HPO4)'), /formula: not a chemical formula at character 8/, '#VALUE!'],
+    ['bad_unit', () => impl.ph([P], [G], 'gallons', 1), /units, row 1: unit not allowed here\. Received "gallons"; expected one of g mg kg µg/, '#VALUE!'],
+    ['bad_model', () => impl.ph([P], [G], 'g', 1, 25, 'pitzer'), /model: unknown activity model\. Received "pitzer"; expected davies, bates-guggenheim or ideal/, '#VALUE!'],
+    ['bad_amount', () => impl.ph([P], [[3.4, -1]], 'g', 1), /amounts, row 2: amount not usable\. Received -1; expected a number zero or above/, '#VALUE!'],
+    ['bad_argument', () => impl.curve([P], [G], 'g', 1, '1 M NaOH', 10, 2.5), /points: .*expected a whole number of points from 2 to 1001/, '#VALUE!'],
+    ['shape_mismatch', () => impl.ph([P], [[1, 2, 3]], 'g', 1), /amounts: ranges of different shapes\. Received a 1×3 range; expected the same shape as reagents \(1×2\)/, '#VALUE!'],
+    ['missing_volume', () => impl.ph([P], [G], 'g'), /volume, row 1: final volume needed\. .*because row 1 is a mass \(g\)/, '#VALUE!'],
+    ['out_of_range', () => impl.ph([P], [G], 'g', 1, 90), /temperature: outside the range the data hold for\. Received 90 °C; expected 0 to 60 °C, the range the phosphate data hold for/, '#VALUE!'],
+    ['unreachable_target', () => impl.titrant(5, [P], [G], 'g', 1, '1 M NaOH'), /targetPH: target cannot be reached: the mixture starts at pH 6\.88 and 1 M sodium hydroxide raises it, but the target is on the other side/, '#N/A'],
+  ])('%s', (code, run, pattern, kind) => {
+    const f = failureOf(run);
+    expect(f.code).toBe(code);
+    expect(f.message).toMatch(pattern);
+    expect(f.kind).toBe(kind);
+  });
+
+  test('no_convergence has a message too', () => {
+    const message = describeFailure({ code: 'no_convergence', argument: 'reagents', received: 'x', expected: 'y' });
+    expect(message).toBe('reagents: the equilibrium did not converge. Received x; expected y.');
+  });
+
+  test('beyond the titrant\'s own pH', () => {
+    const f = failureOf(() => impl.titrant(12.5, [P], [G], 'g', 1, '0.01 M NaOH'));
+    expect(f.code).toBe('unreachable_target');
+    expect(f.message).toMatch(/beyond what 0\.01 M sodium hydroxide can reach: on its own it has pH 11\.9/);
+  });
+
+  test('a recipe whose forms cannot bracket the target', () => {
+    const f = failureOf(() => impl.recipe('NaH2PO4·H2O', 'Na2HPO4·7H2O', 10, 0.1, 1));
+    expect(f.code).toBe('unreachable_target');
+    expect(f.message).toMatch(/cannot bracket it at 0\.1 mol\/L: alone, .* gives pH 4\.\d+ and .* gives pH 9\.\d+/);
+    expect(f.kind).toBe('#N/A');
+  });
+
+  test('an untyped error is shown as an internal error, not swallowed', () => {
+    expect(toCellFailure(new TypeError('boom'))).toEqual({ kind: '#VALUE!', message: 'internal error (please report with the inputs): boom' });
+  });
+});

@@ -1,0 +1,111 @@
+import fc from 'fast-check';
+import { buildContents, chargeBalance, prepareProblem, recipeForTarget, parseReagentSpec, solve, speciesRows, titrantForTarget, withTitrant } from '../src/engine';
+import type { ActivityModel, Contents } from '../src/engine';
+import { fractions } from '../src/functions/impl';
+
+const BUFFERS = ['KH2PO4', 'Na2HPO4', 'citric acid', 'trisodium citrate dihydrate', 'sodium acetate', 'acetic acid', 'Tris', 'Tris hydrochloride', 'HEPES', 'NaHCO3', 'boric acid', 'glycine', 'disodium EDTA dihydrate', 'imidazole', 'MES'];
+const MODELS: ActivityModel[] = ['ideal', 'davies', 'bates-guggenheim'];
+
+const mixture = fc.record({
+  rows: fc.array(fc.record({ reagent: fc.constantFrom(...BUFFERS), log10C: fc.double({ min: -10, max: Math.log10(0.3), noNaN: true }) }), { minLength: 1, maxLength: 4 }),
+  salt: fc.double({ min: 0, max: 0.3, noNaN: true }),
+  model: fc.constantFrom(...MODELS),
+  temperatureC: fc.integer({ min: 5, max: 45 }),
+});
+
+function contentsOf(m: { rows: { reagent: string; log10C: number }[]; salt: number }): Contents {
+  const rows = m.rows.map((r, i) => ({ reagent: r.reagent, amount: 10 ** r.log10C, unit: 'M', row: i + 1 }));
+  rows.push({ reagent: 'NaCl', amount: m.salt, unit: 'M', row: rows.length + 1 });
+  return buildContents(rows, undefined);
+}
+
+describe('invariants at every solution', () => {
+  test('mass and charge balances hold to 1e-10 relative', () => {
+    fc.assert(fc.property(mixture, (m) => {
+      const eq = solve(prepareProblem(contentsOf(m), m.temperatureC, m.model));
+      expect(eq.residualRelative).toBeLessThan(1e-10);
+      const out = { derivative: 0, ionicStrengthM: 0, chargeScaleM: 0 };
+      const f = chargeBalance(eq.problem, eq.lnH, out);
+      expect(Math.abs(f) / out.chargeScaleM).toBeLessThan(1e-10);
+      const rows = speciesRows(eq);
+      eq.problem.systems.forEach((s, i) => {
+        const sum = rows.filter((r) => r.systemId === s.system.id).reduce((acc, r) => acc + r.concentrationM, 0);
+        expect(Math.abs(sum - eq.problem.totalsM[i]) / eq.problem.totalsM[i]).toBeLessThan(1e-10);
+      });
+      expect(Number.isFinite(eq.pH)).toBe(true);
+    }), { numRuns: 300, seed: 7 });
+  });
+
+  test('fractions sum to 1 across the pH scale', () => {
+    fc.assert(fc.property(fc.constantFrom('phosphate', 'citrate', 'EDTA', 'Tris', 'carbonate', 'histidine'), fc.double({ min: -1, max: 15, noNaN: true }), fc.double({ min: 0, max: 0.5, noNaN: true }), (system, pH, ionic) => {
+      const row = fractions(system, pH, 25, ionic)[0];
+      expect(Math.abs(row.reduce((a, b) => a + b, 0) - 1)).toBeLessThan(1e-12);
+      for (const f of row) expect(f).toBeGreaterThanOrEqual(0);
+    }), { numRuns: 300, seed: 8 });
+  });
+
+  test('adding strong base never lowers pH', () => {
+    fc.assert(fc.property(mixture, fc.double({ min: 1e-6, max: 0.05, noNaN: true }), (m, step) => {
+      const contents = contentsOf(m);
+      const spec = parseReagentSpec('NaOH', 'titrant');
+      const before = withTitrant(contents, spec, 0, m.temperatureC, m.model).pH;
+      const after = withTitrant(contents, spec, step, m.temperatureC, m.model).pH;
+      expect(after).toBeGreaterThanOrEqual(before - 1e-9);
+    }), { numRuns: 200, seed: 9 });
+  });
+
+  test('a titrant amount fed back gives the target pH within 1e-6', () => {
+    fc.assert(fc.property(mixture, fc.double({ min: 0.05, max: 2, noNaN: true }), fc.constantFrom('1 M NaOH', '0.5 M HCl', 'NaOH', '2 M KOH'), (m, shift, titrant) => {
+      const contents = contentsOf(m);
+      const spec = parseReagentSpec(titrant, 'titrant');
+      const start = withTitrant(contents, spec, 0, m.temperatureC, m.model).pH;
+      const up = titrant.includes('OH');
+      const target = start + (up ? shift : -shift);
+      if (target > 12.5 || target < 1.5) return;
+      const result = titrantForTarget(target, contents, spec, m.temperatureC, m.model);
+      const check = withTitrant(contents, spec, result.moles, m.temperatureC, m.model).pH;
+      expect(Math.abs(check - target)).toBeLessThan(1e-6);
+    }), { numRuns: 150, seed: 10 });
+  });
+
+  test('a recipe fed back gives its target within 1e-6', () => {
+    const pairs: [string, string, number, number][] = [
+      ['NaH2PO4·H2O', 'Na2HPO4·7H2O', 6.0, 8.0], ['citric acid monohydrate', 'trisodium citrate dihydrate', 3.2, 6.0],
+      ['acetic acid', 'sodium acetate trihydrate', 3.9, 5.5], ['Tris hydrochloride', 'Tris', 7.2, 8.8], ['HEPES', 'HEPES sodium salt', 6.8, 8.2],
+    ];
+    fc.assert(fc.property(fc.constantFrom(...pairs), fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0.005, max: 0.2, noNaN: true }), fc.double({ min: 0, max: 0.2, noNaN: true }), fc.constantFrom(...MODELS), (pair, where, conc, salt, model) => {
+      const [acidName, baseName, lo, hi] = pair;
+      const target = lo + where * (hi - lo);
+      const others = buildContents([{ reagent: 'NaCl', amount: salt, unit: 'M', row: 1 }], 0.5);
+      const lines = recipeForTarget(parseReagentSpec(acidName, 'acidForm'), parseReagentSpec(baseName, 'baseForm'), target, conc, 0.5, others, 25, model);
+      const rows = [
+        { reagent: acidName, amount: lines[0].amount, unit: 'g', row: 1 },
+        { reagent: baseName, amount: lines[1].amount, unit: 'g', row: 2 },
+        { reagent: 'NaCl', amount: salt, unit: 'M', row: 3 },
+      ];
+      const eq = solve(prepareProblem(buildContents(rows, 0.5), 25, model));
+      expect(Math.abs(eq.pH - target)).toBeLessThan(1e-6);
+    }), { numRuns: 150, seed: 11 });
+  });
+});
+
+describe('edge magnitudes', () => {
+  test.each([
+    [[['HCl', 1e-10]], 6.99, 0.02, 'very dilute strong acid stays near neutral, common practice'],
+    [[['HCl', 0.01]], 2.04, 0.01, 'Davies: −log(0.01·γ), γ≈0.90, common practice'],
+    [[['NaOH', 0.01]], 11.95, 0.02, 'Davies at 25 °C, common practice'],
+    [[['acetic acid', 0.1]], 2.88, 0.02, '0.1 M acetic acid, common practice'],
+    [[['Tris', 5]], 11.2, 0.6, 'a 5 mol/L total stays finite (the model is outside its range)'],
+  ] as [[string, number][], number, number, string][])('%j', (rows, ref, tol) => {
+    const contents = buildContents(rows.map(([r, c], i) => ({ reagent: r, amount: c, unit: 'M', row: i + 1 })), undefined);
+    const eq = solve(prepareProblem(contents, 25, 'davies'));
+    expect(Math.abs(eq.pH - ref)).toBeLessThan(tol);
+  });
+  test('pH −1 and 15 are reachable without NaN', () => {
+    for (const [r, c] of [['HCl', 5], ['NaOH', 5], ['HCl', 1e-12], ['phosphoric acid', 5]] as [string, number][]) {
+      const eq = solve(prepareProblem(buildContents([{ reagent: r, amount: c, unit: 'M', row: 1 }], undefined), 25, 'ideal'));
+      expect(Number.isFinite(eq.pH)).toBe(true);
+      expect(eq.residualRelative).toBeLessThan(1e-10);
+    }
+  });
+});

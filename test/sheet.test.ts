@@ -1,0 +1,89 @@
+import { evaluateSheet } from '../scripts/lib/sheetEngine';
+import type { SheetValue } from '../scripts/lib/sheetEngine';
+import { runSheet } from '../scripts/sheet';
+import { ph } from '../src/functions/impl';
+
+// The cell functions through a real spreadsheet engine (HyperFormula), as the runner uses them.
+
+const BATCH = [
+  ['reagent', 'amount', 'unit'],
+  ['KH2PO4', 3.40, 'g'],
+  ['Na2HPO4', 3.55, 'g'],
+  [null, null, null],
+];
+
+function sheet(extra: (string | number | null)[][]): SheetValue[][] {
+  return evaluateSheet([...BATCH.map((r) => [...r]), ...extra]);
+}
+
+describe('cell functions in HyperFormula', () => {
+  test('ranges, a single unit cell and a blank row', () => {
+    const v = sheet([['=PROTIC.PH(A2:A4,B2:B4,"g",1)'], ['=PROTIC.PH(A2:A4,B2:B4,C2:C4,1)']]);
+    expect(v[4][0]).toBeCloseTo(ph([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1), 12);
+    expect(v[5][0]).toBe(v[4][0]);
+    expect(Math.abs((v[4][0] as number) - 6.876)).toBeLessThan(0.01);
+  });
+
+  test('a 0 from an empty cell is a blank row, and "" too', () => {
+    const v = evaluateSheet([['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'], ['', 0, ''], ['=PROTIC.PH(A1:A3,B1:B3,C1:C3,1)']]);
+    expect(typeof v[3][0]).toBe('number');
+  });
+
+  test('spills fill the cells beside them', () => {
+    const v = sheet([['=PROTIC.FRACTIONS("phosphate",7.2)'], ['=PROTIC.RECIPE("NaH2PO4·H2O","Na2HPO4·7H2O",7.4,0.1,1)'], [null], ['=PROTIC.CURVE(A2:A3,B2:B3,"g",1,"1 M NaOH",20,5)']]);
+    const fr = v[4].slice(0, 4) as number[];
+    expect(fr.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
+    expect(v[5][0]).toBe('NaH2PO4·H2O');
+    expect(v[6][0]).toBe('Na2HPO4·7H2O');
+    expect(v[6][1] as number).toBeGreaterThan(0);
+    const curve = v.slice(7, 12).map((r) => r.slice(0, 2));
+    expect(curve.map((r) => r[0])).toEqual([0, 5, 10, 15, 20]);
+    for (let i = 1; i < 5; i++) expect(curve[i][1] as number).toBeGreaterThan(curve[i - 1][1] as number);
+  });
+
+  test('SPECIES lays out a header, species rows and the audit rows', () => {
+    const v = sheet([['=PROTIC.SPECIES(A2:A3,B2:B3,"g",1)']]);
+    expect(v[4].slice(0, 5)).toEqual(['species', 'charge', 'concentration (mol/L)', 'activity coefficient', 'activity']);
+    const labels = v.slice(5).map((r) => r[0]);
+    for (const label of ['H⁺', 'OH⁻', 'K⁺', 'Na⁺', 'H2PO4⁻', 'HPO4²⁻', 'pH', 'ionic strength (mol/L)', 'charge-balance residual (relative)', 'model', 'warning']) expect(labels).toContain(label);
+  });
+
+  test.each([
+    ['=PROTIC.PH("unobtainium",1,"g",1)', '#VALUE!', /unknown reagent/],
+    ['=PROTIC.PH(A2:A3,B2:B5,"g",1)', '#VALUE!', /different shapes/],
+    ['=PROTIC.PH(A2:A3,B2:B3,"g")', '#VALUE!', /final volume needed/],
+    ['=PROTIC.PH(A2:A3,B2:B3,"g",1,25,"pitzer")', '#VALUE!', /unknown activity model/],
+    ['=PROTIC.PH(A2:A3,B2:B3,"g",1,99)', '#VALUE!', /outside the range/],
+    ['=PROTIC.TITRANT(5,A2:A3,B2:B3,"g",1,"1 M NaOH")', '#N/A', /other side/],
+    ['=PROTIC.RECIPE("NaH2PO4·H2O","Na2HPO4·7H2O",11,0.1,1)', '#N/A', /cannot bracket/],
+    ['=PROTIC.MOLARMASS("Na2HPO4)")', '#VALUE!', /character 8/],
+    ['=PROTIC.PKA("phosphate",4)', '#VALUE!', /step from 1 to 3/],
+  ])('%s gives %s with its message', (formula, error, pattern) => {
+    const v = sheet([[formula]]);
+    const cell = v[4][0] as { error: string; message: string };
+    expect(cell.error).toBe(error);
+    expect(cell.message).toMatch(pattern);
+  });
+
+  test('a 50-row what-if table of added NaCl against pH and ionic strength', () => {
+    const rows: (string | number | null)[][] = [['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'], ['NaCl', 0, 'mM']];
+    for (let i = 0; i < 50; i++) {
+      const r = i + 4;
+      rows.push([i * 5, `=PROTIC.PH({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;0}+{0;0;1}*A${r},{"g";"g";"mM"},1)`, `=PROTIC.IONICSTRENGTH(A$1:A$3,{3.4;3.55;0}+{0;0;1}*A${r},C$1:C$3,1)`]);
+    }
+    const v = evaluateSheet(rows);
+    const table = v.slice(3, 53);
+    for (let i = 1; i < 50; i++) {
+      expect(table[i][1] as number).toBeLessThan(table[i - 1][1] as number); // salt lowers the phosphate pH up to about 0.3 mol/L under Davies
+      expect(table[i][2] as number).toBeGreaterThan(table[i - 1][2] as number);
+    }
+    expect(Math.abs((table[10][2] as number) - (table[0][2] as number) - 0.05)).toBeLessThan(0.001);
+  });
+
+  test('the runner prints full precision and messages on request', () => {
+    const out = runSheet('KH2PO4,3.4,g\nNa2HPO4,3.55,g\n"=PROTIC.PH(A1:A2,B1:B2,C1:C2,1)"\n"=PROTIC.PH(""x"",1,""g"",1)"\n', true);
+    const lines = out.trim().split('\n');
+    expect(Number(lines[2])).toBeCloseTo(ph([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1), 14);
+    expect(lines[3]).toMatch(/^"#VALUE! reagents, row 1: unknown reagent/);
+  });
+});
