@@ -7,7 +7,7 @@ import type { Block } from '../src/taskpane/blocks';
 import { SETTINGS_KEY, definitionFromInputs, loadFromSettings, saveDefinition } from '../src/taskpane/customStore';
 import type { SettingsLike } from '../src/taskpane/customStore';
 import { writeBlockAtSelection } from '../src/taskpane/excelWriter';
-import { searchCatalogue, systemView } from '../src/taskpane/catalogueView';
+import { searchCatalogue, suggestedForms, systemView } from '../src/taskpane/catalogueView';
 
 const MIX = { rows: [{ reagent: 'KH2PO4', amount: 3.4, unit: 'g' }, { reagent: 'Na2HPO4', amount: 3.55, unit: 'g' }], volumeL: 1, temperatureC: 25 };
 
@@ -144,6 +144,15 @@ describe('catalogue view', () => {
     expect(near).toEqual(expect.arrayContaining(['phosphate', 'hepes', 'mops', 'tris', 'imidazole']));
     expect(near).not.toContain('acetate');
   });
+  test.each([
+    ['phosphate', 7.4, 'sodium dihydrogen phosphate', 'disodium hydrogen phosphate'],
+    ['citrate', 5, 'potassium dihydrogen citrate', 'disodium hydrogen citrate sesquihydrate'],
+    ['tris', 8, 'Tris hydrochloride', 'Tris'],
+    ['acetate', 4.7, 'acetic acid', 'sodium acetate'],
+  ])('suggested forms for %s at pH %d', (id, pH, acid, base) => {
+    expect(suggestedForms(id, pH, 25)).toEqual({ acid, base });
+  });
+
   test('a system view gives pKa at T and I, dpKa/dT, forms with molar masses and sources', () => {
     const v = systemView('phosphate', 37, 0.15);
     expect(v.steps[1].pKa).toBeLessThan(7.198);

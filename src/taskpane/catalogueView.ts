@@ -54,6 +54,28 @@ export interface SystemView {
   notes: string;
 }
 
+/** Protons a single-system reagent's system part has lost, from its counter-ions (Na2HPO4 → 2). */
+function protonsLost(reagentIndex: number, systemId: string): number | undefined {
+  const r = allReagents()[reagentIndex];
+  if (r.systems.length !== 1 || r.systems[0].systemId !== systemId) return undefined;
+  const z0 = systemFor(systemId).chargeMostProtonated;
+  const ionCharge = r.ions.reduce((sum, ion) => sum + ion.count * (ion.ionId.endsWith('+') ? (ion.ionId.includes('2+') ? 2 : 1) : (ion.ionId.includes('2-') ? -2 : -1)), 0);
+  return z0 + ionCharge / r.systems[0].count;
+}
+
+/** The acid and base forms to suggest for a target pH: the two states either side of the nearest pKa. */
+export function suggestedForms(systemId: string, targetPH: number, temperatureC: number): { acid?: string; base?: string } {
+  const s = systemFor(systemId);
+  let nearest = 0;
+  s.steps.forEach((st, k) => { if (Math.abs(pKaAt(st, temperatureC) - targetPH) < Math.abs(pKaAt(s.steps[nearest], temperatureC) - targetPH)) nearest = k; });
+  const pick = (state: number): string | undefined => {
+    const all = allReagents();
+    const i = all.findIndex((r, index) => !r.liquid && protonsLost(index, systemId) === state);
+    return i >= 0 ? all[i].name : undefined;
+  };
+  return { acid: pick(nearest), base: pick(nearest + 1) };
+}
+
 export function systemView(systemId: string, temperatureC: number, ionicStrengthM: number): SystemView {
   const s = systemFor(systemId);
   const lnG = lnGammaPerZ2('davies', ionicStrengthM / waterDensityKgPerL(temperatureC), debyeHuckelA(temperatureC));

@@ -5,7 +5,7 @@ import * as impl from '../functions/impl';
 import { toCellFailure } from '../functions/outcome';
 import { fractionsBlock, phBlock, recipeBlock, titrantBlock } from './blocks';
 import type { Block } from './blocks';
-import { searchCatalogue, systemView } from './catalogueView';
+import { searchCatalogue, suggestedForms, systemView } from './catalogueView';
 import { definitionFromInputs, loadFromSettings, saveDefinition } from './customStore';
 import type { SettingsLike } from './customStore';
 import { writeBlockAtSelection } from './excelWriter';
@@ -119,20 +119,19 @@ function renderSystem(): void {
     title: `${view.name}: fraction of each form`, xLabel: 'pH', yLabel: 'fraction', xDomain: [0, 14], yDomain: [0, 1], seriesClass: 'series',
     marks: [...view.steps.map((s) => [s.apparentPKa, `pKa${s.step}`, 'pka-mark'] as [number, string, string]), [targetPH, 'target', 'target-mark']],
   });
-  fillFormChoices(view.reagents.map((r) => r.name));
+  fillFormChoices(view.reagents.map((r) => r.name), suggestedForms(state.systemId, targetPH, temperatureC));
 }
 
-function fillFormChoices(names: string[]): void {
-  for (const [id, pick] of [['acid-form', 0], ['base-form', names.length - 1]] as const) {
+function fillFormChoices(names: string[], suggested: { acid?: string; base?: string }): void {
+  const acid = suggested.acid ?? names[0] ?? '';
+  const base = suggested.base ?? names[names.length - 1] ?? '';
+  for (const [id, pick] of [['acid-form', acid], ['base-form', base]] as const) {
     const select = document.getElementById(id) as HTMLSelectElement;
     select.replaceChildren(...names.map((n) => el('option', { value: n }, [n])));
-    if (names.length > 0) select.value = names[Math.max(0, pick)];
+    select.value = pick;
   }
-  const first = document.getElementById('row1-reagent') as HTMLInputElement;
-  if (names.length > 0) {
-    first.value = names[0];
-    (document.getElementById('row2-reagent') as HTMLInputElement).value = names.length > 1 ? names[names.length - 1] : '';
-  }
+  (document.getElementById('row1-reagent') as HTMLInputElement).value = acid;
+  (document.getElementById('row2-reagent') as HTMLInputElement).value = base === acid ? '' : base;
 }
 
 function mixtureInput(): { rows: { reagent: string; amount: number; unit: string }[]; volumeL: number; temperatureC: number } {

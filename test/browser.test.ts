@@ -1,0 +1,111 @@
+import { execFileSync } from 'child_process';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync } from 'fs';
+import { createServer } from 'http';
+import type { Server } from 'http';
+import { tmpdir } from 'os';
+import { extname, join } from 'path';
+import { chromium } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
+
+// The built pane in headless Chromium (Debian's package), with a stand-in Office host.
+const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+const out = mkdtempSync(join(tmpdir(), 'protic-pane-'));
+const TYPES: Record<string, string> = { '.html': 'text/html', '.js': 'text/javascript', '.css': 'text/css', '.png': 'image/png', '.json': 'application/json' };
+let server: Server;
+let browser: Browser;
+let origin = '';
+
+beforeAll(async () => {
+  if (!existsSync(CHROMIUM)) throw new Error(`Chromium not found at ${CHROMIUM}: install Debian's chromium package (.ci/run does)`);
+  execFileSync(process.execPath, [require.resolve('webpack-cli/bin/cli.js'), '--mode', 'production', '--output-path', out], { stdio: 'pipe' });
+  server = createServer((req, res) => {
+    const file = join(out, (req.url ?? '/').split('?')[0].replace(/^\/+/, '') || 'taskpane.html');
+    if (!file.startsWith(out) || !existsSync(file)) { res.writeHead(404); res.end(); return; }
+    res.writeHead(200, { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream' });
+    res.end(readFileSync(file));
+  });
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const address = server.address();
+  origin = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}`;
+  browser = await chromium.launch({
+    executablePath: CHROMIUM,
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+}, 120000);
+
+afterAll(async () => {
+  await browser?.close();
+  await new Promise((resolve) => server?.close(resolve));
+});
+
+async function openPane(initialSettings: Record<string, string> = {}): Promise<{ page: Page; requests: string[]; dialogs: string[] }> {
+  const page = await browser.newPage({ viewport: { width: 320, height: 1800 } });
+  const requests: string[] = [];
+  const dialogs: string[] = [];
+  page.on('request', (r) => requests.push(r.url()));
+  page.on('dialog', (d) => { dialogs.push(d.message()); void d.dismiss(); });
+  await page.route('https://appsforoffice.microsoft.com/**', (route) => route.fulfill({
+    contentType: 'text/javascript',
+    body: `window.__initialSettings = ${JSON.stringify(initialSettings)};\n${readFileSync(join(__dirname, 'browser', 'standInOffice.js'), 'utf8')}`,
+  }));
+  await page.goto(`${origin}/taskpane.html`);
+  await page.waitForSelector('#results li');
+  return { page, requests, dialogs };
+}
+
+describe('the side pane in headless Chromium', () => {
+  test('search, open a system, plot, insert a formula, define a custom system', async () => {
+    const { page, requests } = await openPane();
+    await page.fill('#search', 'phosph');
+    await page.click('#results button[data-system="phosphate"] >> nth=0');
+    await page.waitForSelector('#system-name');
+    expect(await page.textContent('#system-name')).toBe('phosphate');
+    expect(await page.locator('#fractions-chart path.series').count()).toBe(4);
+    expect(await page.locator('#fractions-chart line.pka-mark').count()).toBe(3);
+    expect(await page.locator('#steps tr').count()).toBe(4);
+
+    await page.selectOption('#formula-kind', 'ph');
+    await page.click('#insert');
+    await page.waitForFunction(() => (window as unknown as { __writes: unknown[] }).__writes.length === 1);
+    const writes = await page.evaluate(() => (window as unknown as { __writes: { at: number[]; formulas: unknown[][] }[] }).__writes);
+    expect(writes[0].at).toEqual([1, 1, 6, 3]);
+    expect(writes[0].formulas[0]).toEqual(['Reagent', 'Amount', 'Unit']);
+    expect(writes[0].formulas[5][1]).toBe('=PROTIC.PH(B3:B4,C3:C4,D3:D4,C5,C6)');
+
+    await page.click('#preview');
+    expect(await page.locator('#curve-chart path.curve').count()).toBe(1);
+
+    await page.fill('#custom-name', 'Zorbate');
+    await page.fill('#custom-pka', '5.5');
+    await page.fill('#custom-form1-name', 'zorbic acid');
+    await page.fill('#custom-form1-formula', 'C6H8O2');
+    await page.fill('#custom-form2-name', 'sodium zorbate');
+    await page.fill('#custom-form2-formula', 'C6H7NaO2');
+    await page.click('#custom-save');
+    await page.waitForFunction(() => /Saved Zorbate/.test(document.getElementById('status')?.textContent ?? ''));
+    const fractions = await page.evaluate(() => (window as unknown as { __fns: Record<string, (...a: unknown[]) => number[][]> }).__fns.FRACTIONS('Zorbate', 5.5));
+    expect(fractions[0][0]).toBeCloseTo(0.5, 10);
+    const saved = await page.evaluate(() => (window as unknown as { __savedSettings: Record<string, string> }).__savedSettings['protic.customSystems']);
+    expect(JSON.parse(saved).systems[0].name).toBe('Zorbate');
+
+    await page.fill('#search', 'zorb');
+    expect(await page.locator('#results button[data-system="custom:zorbate"]').count()).toBe(3);
+    await page.fill('#search', 'phosphate');
+    await page.click('#results button[data-system="phosphate"] >> nth=0');
+    mkdirSync('test-output', { recursive: true });
+    await page.screenshot({ path: 'test-output/pane.png', fullPage: true });
+    expect(requests.every((u) => u.startsWith(origin) || u.startsWith('https://appsforoffice.microsoft.com/'))).toBe(true);
+    await page.close();
+  }, 60000);
+
+  test('a hostile custom system in the workbook is rejected and runs no script', async () => {
+    const hostile = JSON.stringify({ systems: [{ name: '<img src=x onerror="window.__pwned=1;alert(1)">', pKa: [1e308], charge: 0 }] });
+    const { page, dialogs } = await openPane({ 'protic.customSystems': hostile });
+    const status = await page.textContent('#status');
+    expect(status).toMatch(/rejected from the workbook: custom system 1 name: value not usable/);
+    expect(await page.evaluate(() => (window as unknown as { __pwned?: number }).__pwned)).toBeUndefined();
+    expect(await page.locator('img').count()).toBe(0);
+    expect(dialogs).toEqual([]);
+    await page.close();
+  }, 60000);
+});
