@@ -34,3 +34,10 @@ export function ionicStrengthFactor(model: ActivityModel, ionicStrengthMolal: nu
 export function lnGammaPerZ2(model: ActivityModel, ionicStrengthMolal: number, debyeHuckelA: number): number {
   return -debyeHuckelA * Math.LN10 * ionicStrengthFactor(model, ionicStrengthMolal);
 }
+
+/** dF/dI of `ionicStrengthFactor`, per mol/kg (for the joint Newton step of the solver). */
+export function ionicStrengthFactorSlope(model: ActivityModel, ionicStrengthMolal: number): number {
+  if (model === 'ideal' || ionicStrengthMolal <= 0) return 0;
+  const s = Math.sqrt(ionicStrengthMolal);
+  return model === 'davies' ? 1 / (2 * s * (1 + s) ** 2) - 0.3 : 1 / (2 * s * (1 + 1.5 * s) ** 2);
+}

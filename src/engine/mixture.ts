@@ -1,6 +1,6 @@
 import type { Reagent } from '../catalogue';
 import { fail, quote } from './failure';
-import { resolveReagent } from './registry';
+import { registryGeneration, resolveReagent } from './registry';
 import type { ResolvedReagent } from './registry';
 import { parseUnit, splitStock } from './units';
 import type { Unit } from './units';
@@ -38,8 +38,25 @@ export interface ReagentSpec {
   stockM?: number;
 }
 
+// Resolved reagent texts, so a table that repeats the same reagents parses each once.
+const specCache = new Map<string, ReagentSpec>();
+let specCacheGeneration = -1;
+
 /** Parses a reagent cell: a stock (`0.5 M NaOH`) or a catalogue name or formula. */
 export function parseReagentSpec(text: string, argument: string, row?: number): ReagentSpec {
+  if (specCacheGeneration !== registryGeneration()) {
+    specCache.clear();
+    specCacheGeneration = registryGeneration();
+  }
+  const hit = specCache.get(text);
+  if (hit) return hit;
+  const spec = parseReagentSpecUncached(text, argument, row);
+  if (specCache.size > 10000) specCache.clear();
+  specCache.set(text, spec);
+  return spec;
+}
+
+function parseReagentSpecUncached(text: string, argument: string, row?: number): ReagentSpec {
   const stock = splitStock(text);
   if (stock) {
     if (!(stock.concentrationM > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });

@@ -15,6 +15,8 @@ export interface PreparedSystem {
   lnKa: Float64Array;
   /** conditional cumulative ln K (scratch, set by `setActivity`); lnCumK[0] = 0 */
   lnCumK: Float64Array;
+  /** d lnCumK[j] / d lnGammaZ2 = Σ_{k≤j} 2 (z0 − k): how the constants move with the activity correction */
+  lnCumKSlope: Float64Array;
 }
 
 export interface PreparedIon {
@@ -42,6 +44,8 @@ export interface Problem {
   lnKwc: number;
   /** count of charge-balance evaluations, for benchmarks */
   evaluations: number;
+  /** every step as system index · 8 + step index, strongest acid first (for the starting guess) */
+  stepOrder: Int32Array;
 }
 
 interface TemperatureConstants {
@@ -83,7 +87,10 @@ export function lnKaAt(system: AcidSystem, temperatureC: number): Float64Array {
 }
 
 export function prepareSystem(system: AcidSystem, temperatureC: number): PreparedSystem {
-  return { system, z0: system.chargeMostProtonated, lnKa: lnKaAt(system, temperatureC), lnCumK: new Float64Array(system.steps.length + 1) };
+  const n = system.steps.length, z0 = system.chargeMostProtonated;
+  const slope = new Float64Array(n + 1);
+  for (let k = 1; k <= n; k++) slope[k] = slope[k - 1] + 2 * (z0 - k);
+  return { system, z0, lnKa: lnKaAt(system, temperatureC), lnCumK: new Float64Array(n + 1), lnCumKSlope: slope };
 }
 
 export function prepareProblem(contents: Contents, temperatureC: number, model: ActivityModel): Problem {
@@ -106,10 +113,18 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
   const problem: Problem = {
     temperatureC, model, debyeHuckelA: water.debyeHuckelA, lnWaterDensity: water.lnWaterDensity, lnKw: water.lnKw,
     systems, totalsM: Float64Array.from(totals), ions, strongChargeM: 0, strongZ2M: 0, lnGammaZ2: 0, lnKwc: 0, evaluations: 0,
+    stepOrder: stepOrderOf(systems),
   };
   updateIonSums(problem);
   setActivity(problem, 0);
   return problem;
+}
+
+function stepOrderOf(systems: PreparedSystem[]): Int32Array {
+  const order: number[] = [];
+  systems.forEach((s, i) => s.lnKa.forEach((_, k) => order.push(i * 8 + k)));
+  order.sort((a, b) => systems[b >> 3].lnKa[b & 7] - systems[a >> 3].lnKa[a & 7]);
+  return Int32Array.from(order);
 }
 
 export function updateIonSums(problem: Problem): void {
