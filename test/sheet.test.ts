@@ -1,4 +1,6 @@
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
+import { loadSystemsFile } from '../scripts/lib/systemsFile';
+import { clearCustomDefinitions } from '../src/engine';
 import type { SheetValue } from '../scripts/lib/sheetEngine';
 import { runSheet } from '../scripts/sheet';
 import { ph } from '../src/functions/impl';
@@ -85,5 +87,21 @@ describe('cell functions in HyperFormula', () => {
     const lines = out.trim().split('\n');
     expect(Number(lines[2])).toBeCloseTo(ph([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1), 14);
     expect(lines[3]).toMatch(/^"#VALUE! reagents, row 1: unknown reagent/);
+  });
+});
+
+describe('the runner with --systems', () => {
+  afterEach(() => clearCustomDefinitions());
+  test('custom systems from a JSON file are used by the cells', () => {
+    expect(loadSystemsFile('examples/custom-systems.json')).toEqual([]);
+    const out = runSheet('zorbic acid,0.05,M\nsodium zorbate,0.05,M\n"=PROTIC.PH(A1:A2,B1:B2,C1:C2,,25,""ideal"")"\n"=PROTIC.PKA(""Zorbate"",1)"\n', false);
+    const lines = out.trim().split('\n');
+    expect(Number(lines[2])).toBeCloseTo(5.5, 2);
+    expect(Number(lines[3])).toBe(5.5);
+  });
+  test('a bad file is refused with its problems', () => {
+    const path = require('path').join(require('os').tmpdir(), 'protic-bad-systems.json');
+    require('fs').writeFileSync(path, JSON.stringify({ systems: [{ name: 'x<y', pKa: [3], charge: 0 }] }));
+    expect(loadSystemsFile(path)[0]).toMatch(/custom system 1 name: value not usable/);
   });
 });

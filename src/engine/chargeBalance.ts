@@ -1,6 +1,4 @@
 import type { Problem } from './problem';
-import { systemMoments } from './speciation';
-import type { Moments } from './speciation';
 
 /** Written by `chargeBalance` so the solver's inner loop allocates nothing. */
 export interface BalanceOut {
@@ -12,38 +10,19 @@ export interface BalanceOut {
   chargeScaleM: number;
 }
 
-const moments: Moments = { mean: 0, variance: 0 };
+const full: JacobianOut = { f: 0, dfdy: 0, dfdL: 0, ionicStrengthM: 0, dIdy: 0, dIdL: 0, chargeScaleM: 0 };
 
 /**
  * The charge balance Σ z c (mol/L) at y = ln [H⁺] (mol/L), with the problem's current
- * conditional constants. Strictly increasing in y.
+ * conditional constants. Strictly increasing in y. (One implementation serves both this and
+ * the joint Newton step, so the two can never disagree.)
  */
 export function chargeBalance(problem: Problem, y: number, out: BalanceOut): number {
-  problem.evaluations++;
-  const h = Math.exp(y);
-  const oh = Math.exp(problem.lnKwc - y);
-  let f = h - oh + problem.strongChargeM;
-  let df = h + oh;
-  let z2 = h + oh + problem.strongZ2M;
-  let scale = h + oh;
-  for (const ion of problem.ions) scale += Math.abs(ion.charge) * ion.concentrationM;
-  const systems = problem.systems;
-  for (let i = 0; i < systems.length; i++) {
-    const s = systems[i];
-    const c = problem.totalsM[i];
-    if (c === 0) continue;
-    systemMoments(s.lnCumK, y, moments);
-    const meanCharge = s.z0 - moments.mean;
-    f += c * meanCharge;
-    df += c * moments.variance;
-    const meanZ2 = meanCharge * meanCharge + moments.variance;
-    z2 += c * meanZ2;
-    scale += c * Math.sqrt(meanZ2);
-  }
-  out.derivative = df;
-  out.ionicStrengthM = z2 / 2;
-  out.chargeScaleM = scale;
-  return f;
+  chargeBalanceJacobian(problem, y, full);
+  out.derivative = full.dfdy;
+  out.ionicStrengthM = full.ionicStrengthM;
+  out.chargeScaleM = full.chargeScaleM;
+  return full.f;
 }
 
 /** Written by `chargeBalanceJacobian`: the balance, the ionic strength and their partial derivatives. */

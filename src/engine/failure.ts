@@ -72,6 +72,9 @@ export function fail(failure: Failure): never {
 export function quote(value: unknown): string {
   if (value === null || value === undefined) return 'an empty cell';
   if (typeof value === 'number') return Number.isFinite(value) ? String(value) : `the non-finite number ${String(value)}`;
+  if (typeof value === 'boolean') return `the logical value ${value ? 'TRUE' : 'FALSE'}`;
+  if (Array.isArray(value)) return `a range of ${value.length} row${value.length === 1 ? '' : 's'}`;
+  if (typeof value !== 'string') return `a value of type ${typeof value}`;
   const text = String(value);
   if (text.trim() === '') return 'an empty text';
   const short = text.length > 60 ? `${text.slice(0, 57)}...` : text;

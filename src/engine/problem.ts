@@ -93,6 +93,16 @@ export function prepareSystem(system: AcidSystem, temperatureC: number): Prepare
   return { system, z0, lnKa: lnKaAt(system, temperatureC), lnCumK: new Float64Array(n + 1), lnCumKSlope: slope };
 }
 
+/** The largest concentration of one system or ion, mol/L, that aqueous solution can hold (common practice). */
+export const MAX_COMPONENT_M = 20;
+
+function checkConcentration(name: string, concentrationM: number): void {
+  if (!(concentrationM <= MAX_COMPONENT_M)) {
+    fail({ code: 'out_of_range', argument: 'amounts', received: `${name} at ${Number.isFinite(concentrationM) ? concentrationM.toPrecision(3) : String(concentrationM)} mol/L`,
+      expected: `at most ${MAX_COMPONENT_M} mol/L of any one component; check the amount, its unit and the volume` });
+  }
+}
+
 export function prepareProblem(contents: Contents, temperatureC: number, model: ActivityModel): Problem {
   checkWaterRange(temperatureC);
   const water = waterConstants(temperatureC);
@@ -102,12 +112,14 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
     const system = systemFor(id);
     checkSystemRange(system, temperatureC);
     systems.push(prepareSystem(system, temperatureC));
+    checkConcentration(system.name, moles / contents.volumeL);
     totals.push(moles / contents.volumeL);
   }
   const ions: PreparedIon[] = [];
   for (const [id, moles] of contents.ionMoles) {
     const ion = strongIonById(id);
     if (!ion) throw new Error(`catalogue inconsistency: no ion ${id}`);
+    checkConcentration(id, moles / contents.volumeL);
     ions.push({ id, charge: ion.charge, concentrationM: moles / contents.volumeL });
   }
   const problem: Problem = {

@@ -62,7 +62,10 @@ export function mixtureRows(reagents: Cell, amounts: Cell, units: Cell, names = 
       if (isBlank(unit)) {
         fail({ code: 'bad_unit', argument: names.units, row: index, received: 'a blank unit', expected: 'g mg kg µg, mol mmol µmol, M mM µM or L mL µL' });
       }
-      rows.push({ reagent, amount, unit: typeof unit === 'string' ? unit : String(unit), row: index });
+      if (typeof unit !== 'string') {
+        fail({ code: 'bad_unit', argument: names.units, row: index, received: quote(unit), expected: 'a unit as text: g mg kg µg, mol mmol µmol, M mM µM or L mL µL' });
+      }
+      rows.push({ reagent, amount, unit, row: index });
     }
   }
   return rows;

@@ -1,0 +1,32 @@
+import { readFileSync, readdirSync } from 'fs';
+import { renderWorkbook } from '../scripts/demo';
+import { evaluateSheet } from '../scripts/lib/sheetEngine';
+import { parseCsv, typedCell } from '../scripts/lib/csv';
+import { species } from '../src/functions/impl';
+
+describe('the bundled examples', () => {
+  test.each(readdirSync('examples').filter((f) => f.endsWith('.csv')))('%s evaluates with no error cell', (file) => {
+    const text = readFileSync(`examples/${file}`, 'utf8');
+    const values = evaluateSheet(parseCsv(text).map((r) => r.map(typedCell)));
+    const errors = values.flat().filter((v) => typeof v === 'object' && v !== null);
+    expect(errors).toEqual([]);
+    expect(renderWorkbook(text)).toMatch(/fictional scenario/);
+  });
+});
+
+describe('model validity', () => {
+  test.each([
+    ['davies', 0.8, /above the davies model's range \(about 0.5 mol\/kg\)/],
+    ['bates-guggenheim', 0.3, /above the bates-guggenheim model's range \(about 0.1 mol\/kg\)/],
+  ])('SPECIES warns above the %s range but still returns a number', (model, nacl, pattern) => {
+    const table = species([['KH2PO4'], ['Na2HPO4'], ['NaCl']], [[0.025], [0.025], [nacl]], 'M', null, 25, model);
+    const warning = table.find((r) => r[0] === 'warning') as (string | number)[];
+    expect(warning[1]).toMatch(pattern);
+    const pH = table.find((r) => r[0] === 'pH') as (string | number)[];
+    expect(Number.isFinite(pH[1] as number)).toBe(true);
+  });
+  test('no warning inside the range', () => {
+    const table = species([['KH2PO4'], ['Na2HPO4']], [[0.025], [0.025]], 'M', null, 25, 'davies');
+    expect((table.find((r) => r[0] === 'warning') as string[])[1]).toBe('none');
+  });
+});
