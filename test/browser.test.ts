@@ -98,6 +98,21 @@ describe('the side pane in headless Chromium', () => {
     await page.close();
   }, 60000);
 
+  test('keyboard only: search, move to a result, open it; every input has a label', async () => {
+    const { page } = await openPane();
+    await page.focus('#search');
+    await page.keyboard.type('trometamol');
+    await page.keyboard.press('Tab'); // the pKa filter checkbox
+    await page.keyboard.press('Tab'); // the first result
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('data-system'))).toBe('tris');
+    await page.keyboard.press('Enter');
+    await page.waitForFunction(() => document.getElementById('system-name')?.textContent === 'Tris');
+    const unlabelled = await page.evaluate(() => Array.from(document.querySelectorAll('input, select'))
+      .filter((e) => !document.querySelector(`label[for="${e.id}"]`) && !e.closest('label')).map((e) => e.outerHTML));
+    expect(unlabelled).toEqual([]);
+    await page.close();
+  }, 60000);
+
   test('a hostile custom system in the workbook is rejected and runs no script', async () => {
     const hostile = JSON.stringify({ systems: [{ name: '<img src=x onerror="window.__pwned=1;alert(1)">', pKa: [1e308], charge: 0 }] });
     const { page, dialogs } = await openPane({ 'protic.customSystems': hostile });

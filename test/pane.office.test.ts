@@ -82,14 +82,24 @@ describe('writing blocks into the sheet (office-addin-mock)', () => {
   });
 });
 
+/** Office.context.document.settings, mocked with office-addin-mock; the store is kept outside the mock to read back. */
 function mockSettings(initial: Record<string, unknown> = {}): SettingsLike & { store: Record<string, unknown>; saves: number } {
-  const s = {
-    store: { ...initial } as Record<string, unknown>, saves: 0,
-    get(name: string) { return this.store[name] ?? null; },
-    set(name: string, value: unknown) { this.store[name] = value; },
-    saveAsync(cb?: (r: { status: string }) => void) { this.saves++; cb?.({ status: 'succeeded' }); },
+  const store: Record<string, unknown> = { ...initial };
+  let saves = 0;
+  const data = {
+    context: { document: { settings: {
+      get(name: string) { return store[name] ?? null; },
+      set(name: string, value: unknown) { store[name] = value; },
+      saveAsync(cb?: (r: { status: string }) => void) { saves++; cb?.({ status: 'succeeded' }); },
+    } } },
   };
-  return s;
+  const office = new OfficeMockObject(data) as unknown as { context: { document: { settings: SettingsLike } } };
+  const settings = office.context.document.settings;
+  return {
+    get: (name: string) => settings.get(name), set: (name: string, value: unknown) => settings.set(name, value),
+    saveAsync: (cb?: (r: { status: string; error?: { message: string } }) => void) => settings.saveAsync(cb),
+    store, get saves() { return saves; },
+  };
 }
 
 describe('custom systems in the workbook settings', () => {

@@ -2,12 +2,12 @@ import { ADDIN_VERSION, CATALOGUE_VERSION } from '../catalogue';
 import {
   bufferCapacity, buildContents, checkSystemRange, checkWaterRange, debyeHuckelA, fail, fractionsAt, lnGammaPerZ2, lnKaAt,
   modelWarning, molarMassGPerMol, molarMassOfReagent, molesToUnit, normaliseName, parseModel, parseReagentSpec,
-  pKaAt, prepareProblem, quote, recipeForTarget, registryGeneration, resolveSystem, speciesRows, solve,
+  pKaAt, prepareProblem, recipeForTarget, registryGeneration, resolveSystem, speciesRows, solve,
   titrantForTarget, titrantUnit, unitToMoles, waterDensityKgPerL, withTitrant, allReagents,
 } from '../engine';
 import type { ActivityModel, Contents, Equilibrium, MixtureRow } from '../engine';
 import {
-  IONIC_STRENGTH_RULE, PH_RULE, TEMPERATURE_RULE, VOLUME_RULE, mixtureRows, optionalNumber, requiredNumber, requiredText,
+  IONIC_STRENGTH_RULE, PH_RULE, TEMPERATURE_RULE, VOLUME_RULE, mixtureRows, optionalNumber, requiredNumber, requiredText, toMatrix,
 } from './args';
 import type { Cell } from './args';
 
@@ -156,7 +156,7 @@ export function fractions(system: Cell, pH: Cell, temperature?: Cell, ionicStren
 }
 
 function toSingle(value: Cell[]): Cell {
-  const flat = (value as Cell[][]).flat ? (value as Cell[][]).flat() : value;
+  const flat = toMatrix(value).flat();
   if (flat.length !== 1) fail({ code: 'shape_mismatch', argument: 'system', received: `a range of ${flat.length} cells`, expected: 'a single cell' });
   return flat[0];
 }
@@ -211,6 +211,3 @@ export function molarMass(formula: Cell): number {
 export function version(): string {
   return `Protic ${ADDIN_VERSION}; catalogue ${CATALOGUE_VERSION}`;
 }
-
-/** For messages about a received argument, shared with the wrappers. */
-export { quote };
