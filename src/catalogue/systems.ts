@@ -123,16 +123,16 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     steps: [step(8.072, 47.45, -59)],
     temperatureRangeC: RANGE_GKL,
   },
-  good('hepes', 'HEPES', 'C8H18N2O4S', 7.564, 20.4, 47),
-  good('mes', 'MES', 'C6H13NO4S', 6.27, 14.8, 5),
+  good('hepes', 'HEPES', 'C8H18N2O4S', 7.564, 20.4, 47, 0, 'pK at 25 °C checked against Vega & Bates 1976, Anal. Chem. 48, 1293'),
+  good('mes', 'MES', 'C6H13NO4S', 6.27, 14.8, 5, 0, 'pK at 25 °C checked against Vega & Bates 1976, Anal. Chem. 48, 1293'),
   good('mops', 'MOPS', 'C7H15NO4S', 7.184, 21.1, 25),
   good('pipes', 'PIPES', 'C8H17N2O6S2', 7.141, 11.2, 22, -1),
-  good('aces', 'ACES', 'C4H10N2O4S', 6.847, 30.43, -49),
-  good('tes', 'TES', 'C6H15NO6S', 7.55, 32.13, 0),
+  good('aces', 'ACES', 'C4H10N2O4S', 6.847, 30.43, -49, 0, 'pK(T) checked against Roy et al. 1997, J. Chem. Eng. Data 42, 41, 5–55 °C, within 0.003'),
+  good('tes', 'TES', 'C6H15NO6S', 7.55, 32.13, 0, 0, 'pK at 25 °C checked against Vega & Bates 1976, Anal. Chem. 48, 1293'),
   good('bicine', 'bicine', 'C6H13NO4', 8.334, 26.34, 0),
   good('tricine', 'tricine', 'C6H13NO5', 8.135, 31.37, -53),
   good('taps', 'TAPS', 'C7H17NO6S', 8.44, 40.4, 15),
-  good('ches', 'CHES', 'C8H17NO3S', 9.394, 39.55, 9),
+  good('ches', 'CHES', 'C8H17NO3S', 9.394, 39.55, 9, 0, 'pK(T) checked against Roy et al. 1997, J. Chem. Eng. Data 42, 41, 5–55 °C, within 0.003'),
   good('caps', 'CAPS', 'C9H19NO3S', 10.499, 48.1, 57),
   {
     id: 'glycine', name: 'glycine', aliases: ['glycinate'],
@@ -166,14 +166,14 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
 ];
 
 /** A Good's buffer with one step in its working range, most protonated form charge `z0`. */
-function good(id: string, name: string, formula: string, pKa: number, dH: number, dCp: number, z0: number = 0): AcidSystem {
+function good(id: string, name: string, formula: string, pKa: number, dH: number, dCp: number, z0: number = 0, checked = ''): AcidSystem {
   const acidLabel = z0 === 0 ? `H${name}±` : `H${name}⁻`;
   const baseLabel = z0 === 0 ? `${name}⁻` : `${name}²⁻`;
   return {
     id, name, aliases: [`${name} buffer`],
     chargeMostProtonated: z0, formulaMostProtonated: formula,
     forms: [acidLabel, baseLabel],
-    steps: [step(pKa, dH, dCp)],
+    steps: [step(pKa, dH, dCp, checked ? `${GKL}; ${checked}` : GKL)],
     temperatureRangeC: RANGE_GKL,
     notes: 'Only the step in the working range is modelled; a carboxyl or sulfonate step below pH 3 is not.',
   };
