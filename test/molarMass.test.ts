@@ -11,6 +11,12 @@ describe('molar masses against handbook values, within 0.01 g/mol', () => {
     expect(Math.abs(molarMassOfReagent(r) - ref)).toBeLessThan(0.01);
   });
   test('at least 15 reagents carry a handbook value', () => expect(withHandbook.length).toBeGreaterThanOrEqual(15));
+  test('every solid reagent carries one; a liquid as sold shares its formula with a checked solid', () => {
+    for (const r of REAGENTS) {
+      if (r.liquid) expect(REAGENTS.some((x) => !x.liquid && x.formula === r.formula && x.handbookMolarMass)).toBe(true);
+      else expect(r.handbookMolarMass).toBeDefined();
+    }
+  });
   test.each(withHandbook.map((r) => [r.name, r.handbookMolarMass!.gPerMol, r.handbookMolarMass!.source, r] as const))('%s: %d g/mol (%s)', (_, ref, __, r) => {
     expect(Math.abs(molarMassOfReagent(r) - ref)).toBeLessThan(0.01);
   });
