@@ -38,4 +38,8 @@ function main(argv: string[]): number {
   return 0;
 }
 
-if (require.main === module) process.exitCode = main(process.argv.slice(2));
+if (require.main === module) {
+  // a reader that stops early (| head) is not an error
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => { if (error.code === 'EPIPE') process.exit(0); else throw error; });
+  process.exitCode = main(process.argv.slice(2));
+}
