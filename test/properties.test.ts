@@ -36,6 +36,16 @@ describe('invariants at every solution', () => {
     }), { numRuns: 300, seed: 7 });
   });
 
+  test('the joint Newton and the bracketed fallback agree on the pH to 1e-9', () => {
+    fc.assert(fc.property(mixture, (m) => {
+      const contents = contentsOf(m);
+      const joint = solve(prepareProblem(contents, m.temperatureC, m.model));
+      const bracketed = solve(prepareProblem(contents, m.temperatureC, m.model), undefined, 'bracketed');
+      expect(Math.abs(joint.pH - bracketed.pH)).toBeLessThan(1e-9);
+      expect(Math.abs(joint.ionicStrengthM - bracketed.ionicStrengthM) / bracketed.ionicStrengthM).toBeLessThan(1e-9);
+    }), { numRuns: 300, seed: 12 });
+  });
+
   test('fractions sum to 1 across the pH scale', () => {
     fc.assert(fc.property(fc.constantFrom('phosphate', 'citrate', 'EDTA', 'Tris', 'carbonate', 'histidine'), fc.double({ min: -1, max: 15, noNaN: true }), fc.double({ min: 0, max: 0.5, noNaN: true }), (system, pH, ionic) => {
       const row = fractions(system, pH, 25, ionic)[0];

@@ -167,10 +167,10 @@ function solveJoint(problem: Problem, yStart: number | undefined): { y: number; 
  * speciation itself, self-consistently. A joint Newton step first; if it does not settle, the
  * bracketed Newton in ln h (which cannot fail) inside a fixed-point loop on the ionic strength.
  */
-export function solve(problem: Problem, yStart?: number): Equilibrium {
+export function solve(problem: Problem, yStart?: number, method: 'auto' | 'bracketed' = 'auto'): Equilibrium {
   const before = problem.evaluations;
   const start = yStart ?? startingLnH(problem);
-  if (problem.model !== 'ideal') {
+  if (problem.model !== 'ideal' && method === 'auto') {
     const joint = solveJoint(problem, yStart);
     if (joint && Math.abs(joint.f) / joint.scale < 1e-12) {
       return { problem, lnH: joint.y, pH: pHFromLnH(problem, joint.y), ionicStrengthM: joint.ionic, residualRelative: Math.abs(joint.f) / joint.scale, evaluations: problem.evaluations - before };
