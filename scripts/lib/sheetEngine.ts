@@ -31,6 +31,17 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
 ];
 
 const SPILLS = new Set(['CURVE', 'FRACTIONS', 'SPECIES', 'RECIPE']);
+const BY_NAME = new Map(PROTIC_FUNCTIONS.map((f) => [f.name, f] as [string, ProticFunction]));
+
+/**
+ * Spill results worked out while the sheet is parsed (to size them), keyed on the function and
+ * its arguments, so evaluating the same call does not compute it a second time.
+ */
+const spillResults = new Map<string, unknown>();
+
+function spillKey(name: string, values: unknown[]): string {
+  return `${name}\u0000${JSON.stringify(values)}`;
+}
 
 /** Raw contents of the sheet being built, so spill sizes can be worked out from typed arguments. */
 let rawGrid: RawCellContent[][] = [];
@@ -98,20 +109,27 @@ function shapeOf(result: unknown): [number, number] | undefined {
 export class ProticPlugin extends FunctionPlugin {
   static implementedFunctions: Record<string, never> = {};
 
-  run(name: string, ast: { args: AstLike[] }, state: { formulaAddress: unknown }): unknown {
-    const entry = PROTIC_FUNCTIONS.find((f) => f.name === name) as ProticFunction;
+  run(name: string, ast: { args: AstLike[] }, state: { formulaAddress: unknown; formulaVertex?: unknown }): unknown {
+    const entry = BY_NAME.get(name) as ProticFunction;
     const values = ast.args.map((arg) => (arg.type === 'EMPTY' ? null : plain(this.evaluateAst(arg as never, state as never))));
     const error = firstError(values);
     if (error) return error;
-    let result: unknown;
-    try {
-      result = entry.fn(...values);
-    } catch (e) {
-      const failure = toCellFailure(e);
-      return new CellError(failure.kind === '#N/A' ? ErrorType.NA : ErrorType.VALUE, failure.message);
+    const spill = SPILLS.has(name);
+    const key = spill ? spillKey(name, values) : '';
+    let result: unknown = spill ? spillResults.get(key) : undefined;
+    if (result === undefined) {
+      try {
+        result = entry.fn(...values);
+      } catch (e) {
+        const failure = toCellFailure(e);
+        return new CellError(failure.kind === '#N/A' ? ErrorType.NA : ErrorType.VALUE, failure.message);
+      }
     }
-    if (!SPILLS.has(name)) return result;
-    const size = this.sizeFor(name, ast, state);
+    if (!spill) return result;
+    // the size reserved at parse time is on the array vertex; work it out again only without one
+    const vertex = state.formulaVertex as { width?: number; height?: number } | undefined;
+    const size: [number, number] = vertex && typeof vertex.width === 'number' && typeof vertex.height === 'number'
+      ? [vertex.height, vertex.width] : this.sizeFor(name, ast, state);
     const shape = shapeOf(result) as [number, number];
     if (shape[0] > size[0] || shape[1] > size[1]) {
       return new CellError(ErrorType.VALUE, `${name}: the result is ${shape[0]}×${shape[1]} but the sheet reserved ${size[0]}×${size[1]}; type the arguments that set its size into cells rather than computing them`);
@@ -121,11 +139,13 @@ export class ProticPlugin extends FunctionPlugin {
   }
 
   sizeFor(name: string, ast: { args: AstLike[] }, state: { formulaAddress: unknown }): [number, number] {
-    const entry = PROTIC_FUNCTIONS.find((f) => f.name === name) as ProticFunction;
+    const entry = BY_NAME.get(name) as ProticFunction;
     const values = ast.args.map((arg) => literal(arg, state.formulaAddress));
     if (values.some((v) => v === undefined)) return entry.fallback ?? [1, 1];
     try {
-      return shapeOf(entry.fn(...values)) ?? [1, 1];
+      const result = entry.fn(...values);
+      spillResults.set(spillKey(name, values), result);
+      return shapeOf(result) ?? [1, 1];
     } catch {
       // the call fails: it will show its error in one cell
       return [1, 1];
@@ -175,5 +195,6 @@ export function evaluateSheet(cells: RawCellContent[][]): SheetValue[][] {
   } finally {
     hf.destroy();
     rawGrid = [];
+    spillResults.clear();
   }
 }

@@ -1,5 +1,5 @@
-import type { AcidSystem, Reagent } from '../catalogue';
-import { ACID_SYSTEMS } from '../catalogue';
+import type { AcidSystem, Reagent, StrongIon } from '../catalogue';
+import { ACID_SYSTEMS, strongIonById } from '../catalogue';
 import { ProticError, describeFailure, fail, quote } from './failure';
 import { parseFormula } from './formula';
 import { normaliseName, setCustomDefinitions } from './registry';
@@ -14,9 +14,8 @@ export interface CustomSystemDefinition { name: string; pKa: number[]; charge: n
 
 /** Names: letters, digits, spaces and a little punctuation; never markup. */
 const SAFE_NAME = /^[\p{L}\p{N} ()+,.'\-]{1,60}$/u;
-const COUNTER_IONS: Record<string, { ionId: string; charge: number }> = {
-  Na: { ionId: 'Na+', charge: 1 }, K: { ionId: 'K+', charge: 1 }, Li: { ionId: 'Li+', charge: 1 }, Cl: { ionId: 'Cl-', charge: -1 }, Br: { ionId: 'Br-', charge: -1 },
-};
+/** Elements in a form's formula taken as its counter-ions, and the strong ion each releases. */
+const COUNTER_IONS: Record<string, string> = { Na: 'Na+', K: 'K+', Li: 'Li+', Cl: 'Cl-', Br: 'Br-' };
 
 function checkName(value: unknown, argument: string): string {
   if (typeof value !== 'string' || !SAFE_NAME.test(value.trim())) {
@@ -66,8 +65,8 @@ function buildSystem(def: Record<string, unknown>, index: number, taken: Set<str
     if (typeof lost !== 'number' || !Number.isInteger(lost) || lost < 0 || lost > pKa.length) {
       fail({ code: 'bad_argument', argument: `${formWhere} protonsLost`, received: quote(lost), expected: `a whole number from 0 to ${pKa.length}` });
     }
-    const ions = Object.entries(COUNTER_IONS).filter(([el]) => (parsed.anhydrous[el] ?? 0) > 0).map(([el, ion]) => ({ ionId: ion.ionId, count: parsed.anhydrous[el] }));
-    const balance = charge - lost + ions.reduce((sum, ion) => sum + ion.count * COUNTER_IONS[Object.keys(COUNTER_IONS).find((el) => COUNTER_IONS[el].ionId === ion.ionId) as string].charge, 0);
+    const ions = Object.entries(COUNTER_IONS).filter(([el]) => (parsed.anhydrous[el] ?? 0) > 0).map(([el, ionId]) => ({ ionId, count: parsed.anhydrous[el] }));
+    const balance = charge - lost + ions.reduce((sum, ion) => sum + ion.count * (strongIonById(ion.ionId) as StrongIon).charge, 0);
     if (balance !== 0) {
       fail({ code: 'bad_argument', argument: `${formWhere} formula`, received: `${form.formula}, net charge ${balance}`, expected: 'a neutral salt: counter-ions (Na, K, Li, Cl, Br) that balance the form\'s charge' });
     }

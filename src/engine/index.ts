@@ -14,7 +14,7 @@ export type { PreparedSystem, Problem } from './problem';
 export { recipeForTarget } from './recipe';
 export type { RecipeLine } from './recipe';
 export {
-  allReagents, allSystems, customSystems, molarMassOfReagent, normaliseName, registryGeneration, resolveReagent, resolveSystem,
+  allReagents, allSystems, molarMassOfReagent, normaliseName, registryGeneration, resolveReagent, resolveSystem,
   setCustomDefinitions, systemFor,
 } from './registry';
 export type { ResolvedReagent } from './registry';
@@ -31,3 +31,4 @@ export type { Unit, UnitKind } from './units';
 export { WATER_RANGE_C, checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL, waterPermittivity } from './water';
 export { applyCustomDefinitions, clearCustomDefinitions } from './customSystems';
 export type { CustomFormDefinition, CustomSystemDefinition } from './customSystems';
+export { apparentPKas, fractionsAtPH } from './apparent';

@@ -111,16 +111,18 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
   for (const [id, moles] of contents.systemMoles) {
     const system = systemFor(id);
     checkSystemRange(system, temperatureC);
+    const concentrationM = moles / contents.volumeL;
+    checkConcentration(system.name, concentrationM);
     systems.push(prepareSystem(system, temperatureC));
-    checkConcentration(system.name, moles / contents.volumeL);
-    totals.push(moles / contents.volumeL);
+    totals.push(concentrationM);
   }
   const ions: PreparedIon[] = [];
   for (const [id, moles] of contents.ionMoles) {
     const ion = strongIonById(id);
     if (!ion) throw new Error(`catalogue inconsistency: no ion ${id}`);
-    checkConcentration(id, moles / contents.volumeL);
-    ions.push({ id, charge: ion.charge, concentrationM: moles / contents.volumeL });
+    const concentrationM = moles / contents.volumeL;
+    checkConcentration(id, concentrationM);
+    ions.push({ id, charge: ion.charge, concentrationM });
   }
   const problem: Problem = {
     temperatureC, model, debyeHuckelA: water.debyeHuckelA, lnWaterDensity: water.lnWaterDensity, lnKw: water.lnKw,

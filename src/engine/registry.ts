@@ -23,10 +23,6 @@ export function setCustomDefinitions(systems: AcidSystem[], reagents: Reagent[])
   store.generation++;
 }
 
-export function customSystems(): readonly AcidSystem[] {
-  return store.systems;
-}
-
 export function allSystems(): readonly AcidSystem[] {
   return store.systems.length === 0 ? ACID_SYSTEMS : [...ACID_SYSTEMS, ...store.systems];
 }

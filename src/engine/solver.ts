@@ -169,7 +169,6 @@ function solveJoint(problem: Problem, yStart: number | undefined): { y: number; 
  */
 export function solve(problem: Problem, yStart?: number, method: 'auto' | 'bracketed' = 'auto'): Equilibrium {
   const before = problem.evaluations;
-  const start = yStart ?? startingLnH(problem);
   if (problem.model !== 'ideal' && method === 'auto') {
     const joint = solveJoint(problem, yStart);
     if (joint && Math.abs(joint.f) / joint.scale < 1e-12) {
@@ -178,7 +177,7 @@ export function solve(problem: Problem, yStart?: number, method: 'auto' | 'brack
   }
   let lnGamma = 0;
   setActivity(problem, 0);
-  let y = start;
+  let y = yStart ?? startingLnH(problem);
   if (problem.model !== 'ideal') {
     // First guess of the activity correction from the strong ions alone.
     lnGamma = lnGammaZ2For(problem, problem.strongZ2M / 2);
@@ -193,7 +192,7 @@ export function solve(problem: Problem, yStart?: number, method: 'auto' | 'brack
     setActivity(problem, lnGamma);
     if (iter === 99) fail({ code: 'no_convergence', argument: 'reagents', received: 'an ionic strength that did not settle', expected: 'a mixture within the model range' });
   }
-  // `scratch` holds the last evaluation, at y: no further evaluation is needed for the residual
+  // the bracketed method may return a midpoint it has not evaluated: evaluate there for the residual
   const f = chargeBalance(problem, y, scratch);
   return {
     problem,

@@ -1,9 +1,9 @@
 import { ADDIN_VERSION, CATALOGUE_VERSION } from '../catalogue';
 import {
-  bufferCapacity, buildContents, checkSystemRange, checkWaterRange, debyeHuckelA, fail, fractionsAt, lnGammaPerZ2, lnKaAt,
+  apparentPKas, bufferCapacity, buildContents, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
   modelWarning, molarMassGPerMol, molarMassOfReagent, molesToUnit, normaliseName, parseModel, parseReagentSpec,
   pKaAt, prepareProblem, recipeForTarget, registryGeneration, resolveSystem, speciesRows, solve,
-  titrantForTarget, titrantUnit, unitToMoles, waterDensityKgPerL, withTitrant, allReagents,
+  titrantForTarget, titrantUnit, unitToMoles, withTitrant, allReagents,
 } from '../engine';
 import type { ActivityModel, Contents, Equilibrium, MixtureRow } from '../engine';
 import {
@@ -54,13 +54,14 @@ function readMixture(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, t
   };
 }
 
-function contentsOf(rows: MixtureRow[], volumeL: number | undefined): Contents {
-  return remember(contentsCache, rowsKey(rows, volumeL), () => buildContents(rows, volumeL));
+function contentsOf(rows: MixtureRow[], volumeL: number | undefined, key = rowsKey(rows, volumeL)): Contents {
+  return remember(contentsCache, key, () => buildContents(rows, volumeL));
 }
 
 function equilibriumOf(m: MixtureArgs): Equilibrium {
-  const key = `${rowsKey(m.rows, m.volumeL)}|${m.temperatureC}|${m.model}`;
-  return remember(equilibriumCache, key, () => solve(prepareProblem(contentsOf(m.rows, m.volumeL), m.temperatureC, m.model)));
+  const mixtureKey = rowsKey(m.rows, m.volumeL);
+  return remember(equilibriumCache, `${mixtureKey}|${m.temperatureC}|${m.model}`,
+    () => solve(prepareProblem(contentsOf(m.rows, m.volumeL, mixtureKey), m.temperatureC, m.model)));
 }
 
 /** The last guard before a number reaches a cell: never NaN or Infinity. */
@@ -144,15 +145,7 @@ export function fractions(system: Cell, pH: Cell, temperature?: Cell, ionicStren
   checkWaterRange(temperatureC);
   checkSystemRange(sys, temperatureC);
   const ionic = optionalNumber(ionicStrengthArg, 'ionicStrength', 0, IONIC_STRENGTH_RULE);
-  const lnKa = lnKaAt(sys, temperatureC);
-  const lnG = lnGammaPerZ2('davies', ionic / waterDensityKgPerL(temperatureC), debyeHuckelA(temperatureC));
-  // [A]/[HA] = Ka γ(HA) / (a(H⁺) γ(A)), with ln γ = z² lnG
-  const cum = new Float64Array(lnKa.length + 1);
-  for (let k = 1; k <= lnKa.length; k++) {
-    const zBefore = sys.chargeMostProtonated - (k - 1), zAfter = zBefore - 1;
-    cum[k] = cum[k - 1] + lnKa[k - 1] + lnG * (zBefore * zBefore - zAfter * zAfter);
-  }
-  return [fractionsAt(cum, -pHValue * Math.LN10).map((f) => finite(f, 'fraction'))];
+  return [fractionsAtPH(sys, pHValue, temperatureC, ionic).map((f) => finite(f, 'fraction'))];
 }
 
 function toSingle(value: Cell[]): Cell {
@@ -169,12 +162,8 @@ export function pka(system: Cell, step: Cell, temperature?: Cell, ionicStrengthA
   checkWaterRange(temperatureC);
   checkSystemRange(sys, temperatureC);
   const ionic = optionalNumber(ionicStrengthArg, 'ionicStrength', 0, IONIC_STRENGTH_RULE);
-  const thermodynamic = pKaAt(sys.steps[k - 1], temperatureC);
-  if (ionic === 0) return finite(thermodynamic, 'pKa');
-  // apparent pKa' = pH − log10([A]/[HA]) = pKa + log10 γ(A) − log10 γ(HA)
-  const lnG = lnGammaPerZ2('davies', ionic / waterDensityKgPerL(temperatureC), debyeHuckelA(temperatureC));
-  const zAcid = sys.chargeMostProtonated - (k - 1), zBase = zAcid - 1;
-  return finite(thermodynamic + (lnG * (zBase * zBase - zAcid * zAcid)) / Math.LN10, 'pKa');
+  if (ionic === 0) return finite(pKaAt(sys.steps[k - 1], temperatureC), 'pKa');
+  return finite(apparentPKas(sys, temperatureC, ionic)[k - 1], 'pKa');
 }
 
 export function recipe(acidForm: Cell, baseForm: Cell, targetPH: Cell, concentration: Cell, volume: Cell, temperature?: Cell, model?: Cell,

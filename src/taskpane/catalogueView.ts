@@ -1,7 +1,8 @@
+import { strongIonById } from '../catalogue';
 import type { AcidSystem } from '../catalogue';
 import {
-  allReagents, allSystems, compositionMassGPerMol, debyeHuckelA, dpKaPerK, lnGammaPerZ2, molarMassOfReagent, normaliseName, parseFormula,
-  pKaAt, systemFor, waterDensityKgPerL, withoutHydrogens,
+  allReagents, allSystems, apparentPKas, compositionMassGPerMol, dpKaPerK, molarMassOfReagent, normaliseName, parseFormula,
+  pKaAt, systemFor, withoutHydrogens,
 } from '../engine';
 
 // What the pane shows of the catalogue, as plain data (no DOM), so it can be tested in Node.
@@ -59,7 +60,7 @@ function protonsLost(reagentIndex: number, systemId: string): number | undefined
   const r = allReagents()[reagentIndex];
   if (r.systems.length !== 1 || r.systems[0].systemId !== systemId) return undefined;
   const z0 = systemFor(systemId).chargeMostProtonated;
-  const ionCharge = r.ions.reduce((sum, ion) => sum + ion.count * (ion.ionId.endsWith('+') ? (ion.ionId.includes('2+') ? 2 : 1) : (ion.ionId.includes('2-') ? -2 : -1)), 0);
+  const ionCharge = r.ions.reduce((sum, ion) => sum + ion.count * (strongIonById(ion.ionId)?.charge ?? 0), 0);
   return z0 + ionCharge / r.systems[0].count;
 }
 
@@ -78,12 +79,10 @@ export function suggestedForms(systemId: string, targetPH: number, temperatureC:
 
 export function systemView(systemId: string, temperatureC: number, ionicStrengthM: number): SystemView {
   const s = systemFor(systemId);
-  const lnG = lnGammaPerZ2('davies', ionicStrengthM / waterDensityKgPerL(temperatureC), debyeHuckelA(temperatureC));
-  const steps = s.steps.map((st, i) => {
-    const zAcid = s.chargeMostProtonated - i, zBase = zAcid - 1;
-    const pKa = pKaAt(st, temperatureC);
-    return { step: i + 1, pKa, apparentPKa: pKa + (lnG * (zBase * zBase - zAcid * zAcid)) / Math.LN10, dpKaPerK: dpKaPerK(st, temperatureC), source: st.source };
-  });
+  const apparent = apparentPKas(s, temperatureC, ionicStrengthM);
+  const steps = s.steps.map((st, i) => ({
+    step: i + 1, pKa: pKaAt(st, temperatureC), apparentPKa: apparent[i], dpKaPerK: dpKaPerK(st, temperatureC), source: st.source,
+  }));
   const top = s.formulaMostProtonated ? parseFormula(s.formulaMostProtonated).composition : undefined;
   const forms = s.forms.map((label, j) => ({
     label, charge: s.chargeMostProtonated - j,
