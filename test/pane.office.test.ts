@@ -156,7 +156,9 @@ describe('catalogue view', () => {
   });
   test.each([
     ['phosphate', 7.4, 'sodium dihydrogen phosphate', 'disodium hydrogen phosphate'],
-    ['citrate', 5, 'potassium dihydrogen citrate', 'disodium hydrogen citrate sesquihydrate'],
+    // One counter-ion for both forms: sodium dihydrogen citrate, not the potassium salt listed first.
+    ['citrate', 5, 'sodium dihydrogen citrate', 'disodium hydrogen citrate sesquihydrate'],
+    ['citrate', 3, 'citric acid', 'potassium dihydrogen citrate'],
     ['tris', 8, 'Tris hydrochloride', 'Tris'],
     ['acetate', 4.7, 'acetic acid', 'sodium acetate'],
   ])('suggested forms for %s at pH %d', (id, pH, acid, base) => {

@@ -9,6 +9,8 @@ function step(pKa: number, dHkJPerMol?: number, dCpJPerKMol?: number, source: st
   return { pKa, dHkJPerMol, dCpJPerKMol, source };
 }
 
+const HPA_1945 = 'pKa: Goldberg, Kishore & Lennen 2002; ΔrH°, ΔrCp°: Hamer, Pinching & Acree 1945, J. Res. NBS 35, 539 (both from memory)';
+
 /** Data from 25 °C with ΔrCp° extrapolate reliably over about this range (common practice). */
 const RANGE_GKL: [number, number] = [0, 60];
 
@@ -54,7 +56,9 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     id: 'phthalate', name: 'phthalate', aliases: ['phthalic acid'],
     chargeMostProtonated: 0, formulaMostProtonated: 'C8H6O4',
     forms: ['H2Phth', 'HPhth⁻', 'Phth²⁻'],
-    steps: [step(2.95, 2.7, -88), step(5.408, -2.17, -295)],
+    // ΔrH° and ΔrCp° of step 1 from the slope and curvature at 298.15 K of the Harned-cell fit
+    // pK1 = 561.57/T − 1.2843 + 0.0078833·T; a recalled +2.7 kJ/mol had the sign wrong.
+    steps: [step(2.95, -2.67, -90, HPA_1945), step(5.408, -2.17, -295)],
     temperatureRangeC: RANGE_GKL,
   },
   {

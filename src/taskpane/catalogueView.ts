@@ -64,17 +64,34 @@ function protonsLost(reagentIndex: number, systemId: string): number | undefined
   return z0 + ionCharge / r.systems[0].count;
 }
 
-/** The acid and base forms to suggest for a target pH: the two states either side of the nearest pKa. */
+/** The strong ions a reagent brings along, as a key: 'Na+' for NaH2PO4, '' for a free acid or base. */
+function counterIonKey(reagentIndex: number): string {
+  return allReagents()[reagentIndex].ions.map((ion) => ion.ionId).sort().join(',');
+}
+
+/**
+ * The acid and base forms to suggest for a target pH: the two states either side of the nearest pKa,
+ * preferring a pair with the same counter-ion (or none on one side), so a buffer is not made of mixed salts.
+ */
 export function suggestedForms(systemId: string, targetPH: number, temperatureC: number): { acid?: string; base?: string } {
   const s = systemFor(systemId);
   let nearest = 0;
   s.steps.forEach((st, k) => { if (Math.abs(pKaAt(st, temperatureC) - targetPH) < Math.abs(pKaAt(s.steps[nearest], temperatureC) - targetPH)) nearest = k; });
-  const pick = (state: number): string | undefined => {
-    const all = allReagents();
-    const i = all.findIndex((r, index) => !r.liquid && protonsLost(index, systemId) === state);
-    return i >= 0 ? all[i].name : undefined;
+  const all = allReagents();
+  const inState = (state: number): number[] =>
+    all.map((_, i) => i).filter((i) => !all[i].liquid && protonsLost(i, systemId) === state);
+  const acids = inState(nearest);
+  const bases = inState(nearest + 1);
+  const compatible = (a: number, b: number): boolean => {
+    const ka = counterIonKey(a);
+    const kb = counterIonKey(b);
+    return ka === kb || ka === '' || kb === '';
   };
-  return { acid: pick(nearest), base: pick(nearest + 1) };
+  for (const a of acids) {
+    const b = bases.find((candidate) => compatible(a, candidate));
+    if (b !== undefined) return { acid: all[a].name, base: all[b].name };
+  }
+  return { acid: acids.length > 0 ? all[acids[0]].name : undefined, base: bases.length > 0 ? all[bases[0]].name : undefined };
 }
 
 export function systemView(systemId: string, temperatureC: number, ionicStrengthM: number): SystemView {
