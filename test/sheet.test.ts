@@ -50,6 +50,21 @@ describe('cell functions in HyperFormula', () => {
     for (const label of ['H⁺', 'OH⁻', 'K⁺', 'Na⁺', 'H2PO4⁻', 'HPO4²⁻', 'pH', 'ionic strength (mol/L)', 'charge-balance residual (relative)', 'model', 'warning']) expect(labels).toContain(label);
   });
 
+  test('a reviewer reproduces the SPECIES activity column and the pH from the printed water density', () => {
+    const v = sheet([['=PROTIC.SPECIES(A2:A3,B2:B3,"g",1)']]);
+    const rows = v.slice(5);
+    const modelText = rows.find((r) => r[0] === 'model')![1] as string;
+    const rhoW = Number(/ρw ([0-9.]+) kg\/L/.exec(modelText)![1]);
+    expect(Math.abs(rhoW - 0.997047)).toBeLessThan(1e-5); // water at 25 °C, CRC Handbook (from memory)
+    for (const r of rows.filter((row) => typeof row[1] === 'number' && typeof row[4] === 'number')) {
+      const [, , c, gamma, activity] = r as [string, number, number, number, number];
+      expect(Math.abs((gamma * c) / rhoW / activity - 1)).toBeLessThan(1e-6); // ρw printed to 6 decimals
+    }
+    const hydrogen = rows.find((r) => r[0] === 'H⁺')!;
+    const pH = rows.find((r) => r[0] === 'pH')![1] as number;
+    expect(-Math.log10(hydrogen[4] as number)).toBeCloseTo(pH, 10);
+  });
+
   test.each([
     ['=PROTIC.PH("unobtainium",1,"g",1)', '#VALUE!', /unknown reagent/],
     ['=PROTIC.PH(A2:A3,B2:B5,"g",1)', '#VALUE!', /different shapes/],

@@ -93,7 +93,9 @@ export function species(reagents: Cell, amounts: Cell, units: Cell, volume?: Cel
   table.push(['pH', finite(eq.pH, 'pH'), '', '', '']);
   table.push(['ionic strength (mol/L)', finite(eq.ionicStrengthM, 'ionic strength'), '', '', '']);
   table.push(['charge-balance residual (relative)', finite(eq.residualRelative, 'residual'), '', '', '']);
-  table.push(['model', `${m.model}, ${m.temperatureC} °C`, '', '', '']);
+  // The basis a reviewer needs to reproduce the activity column: activity = γ·c/ρw (molal).
+  const rhoW = Math.exp(eq.problem.lnWaterDensity);
+  table.push(['model', `${m.model}, ${m.temperatureC} °C; activity = γ·c/ρw, ρw ${rhoW.toFixed(6)} kg/L`, '', '', '']);
   table.push(['warning', warning === '' ? 'none' : warning, '', '', '']);
   return table;
 }
