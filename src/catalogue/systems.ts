@@ -51,6 +51,11 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     steps: [step(9.237, 13.8, -240)],
     temperatureRangeC: RANGE_GKL,
     notes: 'Monomeric borate only; polyborates above about 0.025 mol/L total boron are not modelled.',
+    concentrationLimit: {
+      maxTotalM: 0.025,
+      reason: 'polyborate ions form, which this monomeric model leaves out; the further below pH 9, the higher the computed pH reads',
+      source: 'common practice',
+    },
   },
   {
     id: 'phthalate', name: 'phthalate', aliases: ['phthalic acid'],

@@ -24,6 +24,8 @@ export interface AcidSystem {
   /** temperature range, °C, in which the data hold */
   temperatureRangeC: [number, number];
   notes?: string;
+  /** above this total of the system, mol/L, the catalogue's model of it no longer holds: results carry a warning */
+  concentrationLimit?: { maxTotalM: number; reason: string; source: string };
   /** true for systems a user defined (pane or --systems file) */
   custom?: boolean;
 }

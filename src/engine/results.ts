@@ -50,16 +50,26 @@ export function bufferCapacity(eq: Equilibrium): number {
   return Math.LN10 * scratch.derivative;
 }
 
-/** A warning when the ionic strength is above the activity model's range, or '' when none. */
+/**
+ * Warnings, joined by "; ", when the ionic strength is above the activity model's range or a system's total
+ * is above the concentration its catalogue model holds for; '' when none.
+ */
 export function modelWarning(eq: Equilibrium): string {
   const p = eq.problem;
+  const warnings: string[] = [];
   const limit = MODEL_LIMIT_MOLAL[p.model];
   const ionicMolal = eq.ionicStrengthM / Math.exp(p.lnWaterDensity);
   if (p.model !== 'ideal' && ionicMolal > limit) {
-    return `ionic strength ${ionicMolal.toPrecision(3)} mol/kg is above the ${p.model} model's range (about ${limit} mol/kg): treat the pH as an estimate`;
+    warnings.push(`ionic strength ${ionicMolal.toPrecision(3)} mol/kg is above the ${p.model} model's range (about ${limit} mol/kg): treat the pH as an estimate`);
   }
   if (p.model === 'ideal' && ionicMolal > 0.001) {
-    return `ideal model at ionic strength ${ionicMolal.toPrecision(3)} mol/kg: activity corrections are ignored`;
+    warnings.push(`ideal model at ionic strength ${ionicMolal.toPrecision(3)} mol/kg: activity corrections are ignored`);
   }
-  return '';
+  p.systems.forEach((s, i) => {
+    const cap = s.system.concentrationLimit;
+    if (cap && p.totalsM[i] > cap.maxTotalM) {
+      warnings.push(`${s.system.name} total ${p.totalsM[i].toPrecision(3)} mol/L is above ${cap.maxTotalM} mol/L: ${cap.reason}`);
+    }
+  });
+  return warnings.join('; ');
 }
