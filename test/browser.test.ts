@@ -113,6 +113,20 @@ describe('the side pane in headless Chromium', () => {
     await page.close();
   }, 60000);
 
+  test('a result outside the model\'s range is shown with its warning, and the preview axis names the unit', async () => {
+    const { page } = await openPane();
+    await page.fill('#row1-reagent', 'borax decahydrate');
+    await page.fill('#row1-amount', '4.77'); // 0.0125 mol in 1 L: 0.05 mol/L boron
+    await page.fill('#row2-reagent', '');
+    await page.fill('#titrant', '1 M HCl');
+    await page.click('#preview');
+    const status = await page.textContent('#status');
+    expect(status).toMatch(/^Preview: pH 9\.\d\d to \d\.\d\d\.\nWarning: borate total 0\.0500 mol\/L is above 0\.025 mol\/L: polyborate/);
+    expect(await page.getAttribute('#status', 'class')).toBe('status error');
+    expect(await page.textContent('#curve-chart')).toContain('titrant added (mL)');
+    await page.close();
+  }, 60000);
+
   test('a hostile custom system in the workbook is rejected and runs no script', async () => {
     const hostile = JSON.stringify({ systems: [{ name: '<img src=x onerror="window.__pwned=1;alert(1)">', pKa: [1e308], charge: 0 }] });
     const { page, dialogs } = await openPane({ 'protic.customSystems': hostile });

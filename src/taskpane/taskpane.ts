@@ -1,6 +1,6 @@
 /* global Office */
 import { ADDIN_VERSION, CATALOGUE_VERSION } from '../catalogue';
-import { ProticError, systemFor } from '../engine';
+import { ProticError, parseReagentSpec, systemFor, titrantUnit } from '../engine';
 import * as impl from '../functions/impl';
 import { toCellFailure } from '../functions/outcome';
 import { fractionsBlock, phBlock, recipeBlock, titrantBlock } from './blocks';
@@ -50,6 +50,14 @@ function setStatus(message: string, isError = false): void {
   const status = document.getElementById('status') as HTMLElement;
   status.textContent = message;
   status.className = isError ? 'status error' : 'status';
+}
+
+/** A result with its mixture's model warning beside it (shown as a warning), so no number in the pane is silent. */
+function setResultStatus(message: string): void {
+  const [reagents, amounts, units, volumeL, temperatureC] = mixtureArgs();
+  const row = impl.species(reagents, amounts, units, volumeL, temperatureC).find((r) => r[0] === 'warning');
+  const warning = row === undefined || row[1] === 'none' ? '' : String(row[1]);
+  setStatus(warning === '' ? message : `${message}\nWarning: ${warning}.`, warning !== '');
 }
 
 function failureText(error: unknown): string {
@@ -175,7 +183,8 @@ async function insert(): Promise<void> {
   try {
     checkBeforeInsert(kind);
     const written = await writeBlockAtSelection(blockBuilder(kind));
-    setStatus(`Wrote ${written}.`);
+    if (kind === 'ph' || kind === 'titrant') setResultStatus(`Wrote ${written}.`);
+    else setStatus(`Wrote ${written}.`);
   } catch (error) {
     setStatus(failureText(error), true);
   }
@@ -185,10 +194,11 @@ function previewCurve(): void {
   const [reagents, amounts, units, volumeL, temperatureC] = mixtureArgs();
   try {
     const points = impl.curve(reagents, amounts, units, volumeL, str('titrant'), num('max-amount'), 41, temperatureC) as number[][];
+    const unit = titrantUnit(undefined, parseReagentSpec(str('titrant'), 'titrant'), 'resultUnit').symbol;
     drawChart(document.getElementById('curve-chart') as HTMLElement, [{ label: `pH with ${str('titrant')}`, points: points.map((p) => [p[0], p[1]] as [number, number]) }], {
-      title: 'Titration preview', xLabel: 'titrant added (mL or g)', yLabel: 'pH', xDomain: [0, num('max-amount')], seriesClass: 'curve',
+      title: 'Titration preview', xLabel: `titrant added (${unit})`, yLabel: 'pH', xDomain: [0, num('max-amount')], seriesClass: 'curve',
     });
-    setStatus(`Preview: pH ${points[0][1].toFixed(2)} to ${points[points.length - 1][1].toFixed(2)}.`);
+    setResultStatus(`Preview: pH ${points[0][1].toFixed(2)} to ${points[points.length - 1][1].toFixed(2)}.`);
   } catch (error) {
     setStatus(failureText(error), true);
   }
