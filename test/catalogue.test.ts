@@ -16,8 +16,38 @@ describe('catalogue consistency', () => {
     for (const s of r.systems) expect(ACID_SYSTEMS.some((a) => a.id === s.systemId)).toBe(true);
     for (const ion of r.ions) expect(strongIonById(ion.ionId)).toBeDefined();
     expect(molarMassOfReagent(r)).toBeGreaterThan(1);
-    // the reagent is neutral when every system is in its most protonated form less the protons it lost
     expect(resolveReagent(r.name, 'reagents').reagent).toBe(r);
+  });
+
+  // A reagent is neutral: its systems' most protonated forms, less the protons its strong ions' charge
+  // takes away, plus those ions, make up its formula, but for whole water molecules (NaOH = Na⁺ + H2O − H⁺).
+  test.each(REAGENTS.map((r) => [r.id, r] as const))('%s: formula = systems − protons lost + strong ions (± water)', (_, r) => {
+    const expected: Record<string, number> = {};
+    const add = (composition: Record<string, number>, times: number): void => {
+      for (const [el, n] of Object.entries(composition)) expected[el] = (expected[el] ?? 0) + n * times;
+    };
+    let protonsLost = 0;
+    for (const s of r.systems) {
+      const system = ACID_SYSTEMS.find((a) => a.id === s.systemId)!;
+      add(parseFormula(system.formulaMostProtonated).composition, s.count);
+      protonsLost += system.chargeMostProtonated * s.count;
+    }
+    for (const ion of r.ions) {
+      const z = strongIonById(ion.ionId)!.charge;
+      const suffix = `${Math.abs(z) > 1 ? Math.abs(z) : ''}${z > 0 ? '+' : '-'}`; // Ca2+ → Ca, NO3- → NO3
+      add(parseFormula(ion.ionId.slice(0, -suffix.length)).composition, ion.count);
+      protonsLost += z * ion.count;
+    }
+    add({ H: 1 }, -protonsLost);
+    const actual = parseFormula(r.formula).composition; // anhydrous: hydrate water is kept apart
+    const difference: Record<string, number> = {};
+    for (const el of new Set([...Object.keys(actual), ...Object.keys(expected)])) {
+      const d = (actual[el] ?? 0) - (expected[el] ?? 0);
+      if (Math.abs(d) > 1e-9) difference[el] = d;
+    }
+    const water = difference.O ?? 0;
+    expect(Number.isInteger(water)).toBe(true);
+    expect(difference).toEqual(water === 0 ? {} : { H: 2 * water, O: water });
   });
 
   test('no two solid reagents share an anhydrous composition and hydrate count', () => {

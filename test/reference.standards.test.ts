@@ -12,6 +12,9 @@ const KHP: Standard = { label: '0.05 m potassium hydrogen phthalate', molal: [['
 const BORAX: Standard = { label: '0.01 m borax', molal: [['borax decahydrate', 0.01]] };
 const CARBONATE: Standard = { label: '0.025 m NaHCO3 + 0.025 m Na2CO3', molal: [['NaHCO3', 0.025], ['Na2CO3', 0.025]] };
 const TARTRATE: Standard = { label: 'KH tartrate saturated at 25 °C (0.0341 m)', molal: [['potassium hydrogen tartrate', 0.0341]] };
+const TETROXALATE: Standard = { label: '0.05 m potassium tetroxalate', molal: [['potassium tetroxalate dihydrate', 0.05]] };
+const ACETATE: Standard = { label: '0.1 m acetic acid + 0.1 m sodium acetate', molal: [['acetic acid', 0.1], ['sodium acetate', 0.1]] };
+const TRIS: Standard = { label: '0.01667 m Tris + 0.05 m Tris hydrochloride', molal: [['Tris', 0.01667], ['Tris hydrochloride', 0.05]] };
 const CITRATE: Standard = { label: '0.05 m potassium dihydrogen citrate', molal: [['potassium dihydrogen citrate', 0.05]] };
 
 function pHOf(standard: Standard, temperatureC: number): number {
@@ -32,6 +35,24 @@ describe('IUPAC 2002 primary standards at 25 °C, davies, within 0.015 pH', () =
     [CARBONATE, 10.012, IUPAC],
   ].map(([standard, reference, source]) => [(standard as Standard).label, reference, source, standard]))('%s: %d (%s)', (_, reference, __, standard) => {
     expect(Math.abs(pHOf(standard as Standard, 25) - (reference as number))).toBeLessThan(0.015);
+  });
+});
+
+// Secondary standards, same model and bound as the primary ones.
+const IUPAC_SECONDARY = 'IUPAC 2002 (Buck et al.), secondary standard (from memory)';
+const TRIS_SRM = 'NBS Tris standard (SRM 922/923), Durst & Staples 1972, Clin. Chem. 18, 206 (from memory)';
+describe('secondary standards, davies, within 0.015 pH', () => {
+  test.each([
+    [TETROXALATE, 25, 1.680, IUPAC_SECONDARY],
+    [ACETATE, 25, 4.652, IUPAC_SECONDARY],
+  ].map(([standard, t, ref, source]) => [(standard as Standard).label, t, ref, source, standard] as const))('%s at %d °C: %d (%s)', (_, t, ref, __, standard) => {
+    expect(Math.abs(pHOf(standard as Standard, t as number) - (ref as number))).toBeLessThan(0.015);
+  });
+  // Finding: a cation acid at I = 0.05; the Davies term reads 0.018 low here (measured −0.0184).
+  test.failing.each([
+    [TRIS, 25, 7.699, TRIS_SRM],
+  ].map(([standard, t, ref, source]) => [(standard as Standard).label, t, ref, source, standard] as const))('known miss: %s at %d °C: %d (%s)', (_, t, ref, __, standard) => {
+    expect(Math.abs(pHOf(standard as Standard, t as number) - (ref as number))).toBeLessThan(0.015);
   });
 });
 

@@ -87,6 +87,9 @@ export const REAGENTS: readonly Reagent[] = [
   r({ id: 'oxalic-2', name: 'oxalic acid dihydrate', formula: 'H2C2O4', hydrateWater: 2, system: 'oxalate', mm: 126.07 }),
   r({ id: 'oxalic', name: 'oxalic acid', aliases: ['oxalic acid anhydrous'], formula: 'H2C2O4', system: 'oxalate', mm: 90.03 }),
   r({ id: 'na2ox', name: 'sodium oxalate', formula: 'Na2C2O4', system: 'oxalate', ions: { 'Na+': 2 }, mm: 134.00 }),
+  // The pH 1.68 calibration salt: one K⁺ and two oxalate units, three protons between them.
+  r({ id: 'ktetrox-2', name: 'potassium tetroxalate dihydrate', aliases: ['potassium tetraoxalate dihydrate', 'potassium trihydrogen dioxalate dihydrate', 'potassium tetroxalate'],
+    formula: 'KH3(C2O4)2', hydrateWater: 2, systemsMap: { oxalate: 2 }, ions: { 'K+': 1 }, mm: 254.19 }),
   r({ id: 'tartaric', name: 'L-tartaric acid', aliases: ['tartaric acid'], formula: 'C4H6O6', system: 'tartrate', mm: 150.09 }),
   r({ id: 'khtart', name: 'potassium hydrogen tartrate', aliases: ['potassium bitartrate', 'cream of tartar'], formula: 'KHC4H4O6', system: 'tartrate', ions: { 'K+': 1 }, mm: 188.18 }),
   r({ id: 'succinic', name: 'succinic acid', formula: 'C4H6O4', system: 'succinate', mm: 118.09 }),
