@@ -21,6 +21,7 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['H3PO4', 'H2PO4⁻', 'HPO4²⁻', 'PO4³⁻'],
     steps: [step(2.148, -8.0, -141), step(7.198, 3.6, -230), step(12.35, 16.0, -242)],
     temperatureRangeC: RANGE_GKL,
+    bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'CaHPO4 and MgHPO4 ion pairs and calcium phosphate precipitation are not modelled', source: 'common practice' },
   },
   {
     id: 'citrate', name: 'citrate', aliases: ['citric acid'],
@@ -28,6 +29,7 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['H3Cit', 'H2Cit⁻', 'HCit²⁻', 'Cit³⁻'],
     steps: [step(3.128, 4.07, -131), step(4.761, 2.23, -178), step(6.396, -3.38, -254)],
     temperatureRangeC: RANGE_GKL,
+    bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'citrate binds Ca²⁺ and Mg²⁺, releasing protons, which the model leaves out: the pH reads high', source: 'common practice' },
   },
   {
     id: 'acetate', name: 'acetate', aliases: ['acetic acid', 'ethanoate'],
@@ -42,6 +44,7 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['CO2(aq)', 'HCO3⁻', 'CO3²⁻'],
     steps: [step(6.351, 9.15, -371), step(10.329, 14.7, -249)],
     temperatureRangeC: [0, 50],
+    bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'carbonate ion pairs and CaCO3 precipitation are not modelled', source: 'common practice' },
     notes: 'Closed system: no exchange of CO2 with air. CO2(aq) and H2CO3 are counted together.',
   },
   {
@@ -72,6 +75,7 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['H2C2O4', 'HC2O4⁻', 'C2O4²⁻'],
     steps: [step(1.27, -3.9, -231), step(4.266, 7.3, -231)],
     temperatureRangeC: RANGE_GKL,
+    bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'calcium oxalate is sparingly soluble and may precipitate; oxalate complexes are not modelled', source: 'common practice' },
   },
   {
     id: 'tartrate', name: 'tartrate', aliases: ['tartaric acid', 'L-tartrate'],
@@ -170,6 +174,7 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['H6Y²⁺', 'H5Y⁺', 'H4Y', 'H3Y⁻', 'H2Y²⁻', 'HY³⁻', 'Y⁴⁻'],
     steps: [step(0.0), step(1.5), step(2.0, 1.3), step(2.69, 1.7), step(6.273, 16.4), step(10.948, 23.4)],
     temperatureRangeC: [5, 45],
+    bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'EDTA binds Ca²⁺ and Mg²⁺ strongly, releasing protons, which the model leaves out: the pH reads high', source: 'common practice' },
     notes: 'Metal complexation is not modelled: Ca²⁺ and Mg²⁺ are taken as free ions.',
   },
 ];

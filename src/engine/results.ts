@@ -51,8 +51,8 @@ export function bufferCapacity(eq: Equilibrium): number {
 }
 
 /**
- * Warnings, joined by "; ", when the ionic strength is above the activity model's range or a system's total
- * is above the concentration its catalogue model holds for; '' when none.
+ * Warnings, joined by "; ", when the ionic strength is above the activity model's range, a system's total
+ * is above the concentration its catalogue model holds for, or a system meets a metal ion it binds; '' when none.
  */
 export function modelWarning(eq: Equilibrium): string {
   const p = eq.problem;
@@ -70,6 +70,9 @@ export function modelWarning(eq: Equilibrium): string {
     if (cap && p.totalsM[i] > cap.maxTotalM) {
       warnings.push(`${s.system.name} total ${p.totalsM[i].toPrecision(3)} mol/L is above ${cap.maxTotalM} mol/L: ${cap.reason}`);
     }
+    const binds = s.system.bindsIons;
+    const bound = binds ? p.ions.filter((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id)).map((ion) => ion.id) : [];
+    if (binds && p.totalsM[i] > 0 && bound.length > 0) warnings.push(`${s.system.name} with ${bound.join(' and ')}: ${binds.reason}`);
   });
   return warnings.join('; ');
 }
