@@ -103,6 +103,19 @@ describe('cell functions in HyperFormula', () => {
     expect(Math.abs((table[10][2] as number) - (table[0][2] as number) - 0.05)).toBeLessThan(0.001);
   });
 
+  test('a WARNINGS column beside PH flags the rows outside the model and only those', () => {
+    const rows: (string | number | null)[][] = [];
+    for (const nacl of [0, 100, 300, 700, 1000]) {
+      const r = rows.length + 1;
+      rows.push([nacl, `=PROTIC.PH({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;0}+{0;0;1}*A${r},{"g";"g";"mM"},1)`, `=PROTIC.WARNINGS({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;0}+{0;0;1}*A${r},{"g";"g";"mM"},1)`]);
+    }
+    const v = evaluateSheet(rows);
+    expect(v.map((row) => typeof row[1])).toEqual(['number', 'number', 'number', 'number', 'number']);
+    // Davies holds to about 0.5 mol/kg (README); the buffer alone gives I = 0.10 mol/L, each row adds its NaCl.
+    expect(v.map((row) => (row[2] === 'none' ? 'none' : /above the davies model's range/.test(String(row[2])) ? 'range' : row[2])))
+      .toEqual(['none', 'none', 'none', 'range', 'range']);
+  });
+
   test('the runner prints full precision and messages on request', () => {
     const out = runSheet('KH2PO4,3.4,g\nNa2HPO4,3.55,g\n"=PROTIC.PH(A1:A2,B1:B2,C1:C2,1)"\n"=PROTIC.PH(""x"",1,""g"",1)"\n', true);
     const lines = out.trim().split('\n');

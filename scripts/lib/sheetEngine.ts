@@ -22,6 +22,7 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 2] },
   { name: 'FRACTIONS', fn: impl.fractions as Impl, arity: [2, 4], fallback: [1, 7] },
   { name: 'SPECIES', fn: impl.species as Impl, arity: [3, 6], fallback: [40, 5] },
+  { name: 'WARNINGS', fn: impl.warnings as Impl, arity: [3, 6] },
   { name: 'IONICSTRENGTH', fn: impl.ionicStrength as Impl, arity: [3, 6] },
   { name: 'CAPACITY', fn: impl.capacity as Impl, arity: [3, 6] },
   { name: 'PKA', fn: impl.pka as Impl, arity: [2, 4] },

@@ -103,6 +103,22 @@ function SPECIES(reagents: any[][], amounts: any[][], units: any[][], volume?: a
 }
 
 /**
+ * The mixture's model warnings (activity model out of range, polyborates, metal binding), or "none".
+ * @customfunction WARNINGS
+ * @helpurl https://localhost:3000/README.md#warnings
+ * @param reagents Reagents, one per row.
+ * @param amounts Amount of each reagent.
+ * @param units Unit of each amount: one cell or one per row.
+ * @param [volume] Final volume of the solution, L.
+ * @param [temperature] Temperature, °C (default 25).
+ * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @returns Warning text, or none.
+ */
+function WARNINGS(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, model?: any): string {
+  return run(() => impl.warnings(reagents, amounts, units, volume, temperature, model));
+}
+
+/**
  * Ionic strength at equilibrium, mol/L.
  * @customfunction IONICSTRENGTH
  * @helpurl https://localhost:3000/README.md#ionicstrength
@@ -191,4 +207,4 @@ function VERSION(): string {
 }
 
 // The metadata plugin's loader appends CustomFunctions.associate for each @customfunction above.
-export const EXCEL_FUNCTIONS = { PH, TITRANT, CURVE, FRACTIONS, SPECIES, IONICSTRENGTH, CAPACITY, PKA, RECIPE, MOLARMASS, VERSION };
+export const EXCEL_FUNCTIONS = { PH, TITRANT, CURVE, FRACTIONS, SPECIES, WARNINGS, IONICSTRENGTH, CAPACITY, PKA, RECIPE, MOLARMASS, VERSION };

@@ -1,0 +1,70 @@
+import { readFileSync } from 'fs';
+import { evaluateSheet } from '../scripts/lib/sheetEngine';
+import type { SheetValue } from '../scripts/lib/sheetEngine';
+
+// The README's function reference promises each example result came from the sheet runner on this
+// version: every example is evaluated here and compared at the precision the README prints.
+const README = readFileSync('README.md', 'utf8').replace(/\s*\n\s*/g, ' ');
+const SHEET: (string | number)[][] = [['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g']];
+
+/** The cells a formula fills, written below the two reagent rows. */
+function evaluate(formula: string): SheetValue[][] {
+  return evaluateSheet([...SHEET.map((r) => [...r]), [formula]]).slice(2);
+}
+
+/** Half a unit in the last printed place: 6.8759 → 5e-5, 4.43e-6 → 5e-9. */
+function halfUlp(printed: string): number {
+  const [mantissa, exponent] = printed.toLowerCase().split('e');
+  const decimals = (mantissa.split('.')[1] ?? '').length;
+  return 0.5 * 10 ** (-decimals + Number(exponent ?? 0));
+}
+
+const NUMERIC: [string, string, (v: SheetValue[][]) => SheetValue[]][] = [
+  ['=PROTIC.PH(A1:A2,B1:B2,C1:C2,1)', '6.8759', (v) => [v[0][0]]],
+  ['=PROTIC.TITRANT(7.4,A1:A2,B1:B2,C1:C2,1,"1 M NaOH")', '13.913', (v) => [v[0][0]]],
+  ['=PROTIC.CURVE(A1:A2,B1:B2,C1:C2,1,"1 M NaOH",20,3)', '0, 6.8759 / 10, 7.2280 / 20, 7.8016', (v) => v.slice(0, 3).flatMap((r) => r.slice(0, 2))],
+  ['=PROTIC.FRACTIONS("phosphate",7.2)', '4.43e-6, 0.49884, 0.50115, 3.55e-6', (v) => v[0].slice(0, 4)],
+  ['=PROTIC.IONICSTRENGTH(A1:A2,B1:B2,C1:C2,1)', '0.10001', (v) => [v[0][0]]],
+  ['=PROTIC.CAPACITY(A1:A2,B1:B2,C1:C2,1)', '0.028781', (v) => [v[0][0]]],
+  ['=PROTIC.PKA("Tris",1,37)', '7.7527', (v) => [v[0][0]]],
+  ['=PROTIC.PKA("phosphate",2,25,0.15)', '6.8389', (v) => [v[0][0]]],
+  ['=PROTIC.MOLARMASS("Na2HPO4·7H2O")', '268.06', (v) => [v[0][0]]],
+];
+
+describe('README examples evaluate to what the README prints', () => {
+  test.each(NUMERIC)('%s → %s', (formula, printed, pick) => {
+    expect(README).toContain(`\`${formula}\` → ${printed}`);
+    const expected = printed.split(/\s*[,/]\s*/);
+    const got = pick(evaluate(formula));
+    expect(got).toHaveLength(expected.length);
+    got.forEach((value, i) => expect(Math.abs((value as number) - Number(expected[i]))).toBeLessThanOrEqual(halfUlp(expected[i]) * (1 + 1e-9)));
+  });
+
+  test('RECIPE: the forms and their grams', () => {
+    const formula = '=PROTIC.RECIPE("Tris hydrochloride","Tris",8,0.05,0.5)';
+    expect(README).toContain(`\`${formula}\` → Tris hydrochloride 2.2891 g, Tris 1.2689 g`);
+    const v = evaluate(formula);
+    expect([v[0][0], v[1][0]]).toEqual(['Tris hydrochloride', 'Tris']);
+    expect(Math.abs((v[0][1] as number) - 2.2891)).toBeLessThanOrEqual(halfUlp('2.2891'));
+    expect(Math.abs((v[1][1] as number) - 1.2689)).toBeLessThanOrEqual(halfUlp('1.2689'));
+  });
+
+  test('SPECIES: pH, ionic strength and warning rows', () => {
+    const formula = '=PROTIC.SPECIES("0.1 M HCl",10,"mL",0.1)';
+    expect(README).toContain(`\`${formula}\` → … pH 2.0437, ionic strength 0.0100`);
+    const v = evaluate(formula);
+    const row = (label: string): SheetValue => v.find((r) => r[0] === label)![1];
+    expect(Math.abs((row('pH') as number) - 2.0437)).toBeLessThanOrEqual(halfUlp('2.0437'));
+    expect(Math.abs((row('ionic strength (mol/L)') as number) - 0.01)).toBeLessThanOrEqual(halfUlp('0.0100'));
+    expect(row('charge-balance residual (relative)') as number).toBeLessThan(1e-12);
+    expect(row('warning')).toBe('none');
+  });
+
+  test.each([
+    ['=PROTIC.WARNINGS({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;700},{"g";"g";"mM"},1)'],
+    ['=PROTIC.VERSION()'],
+  ])('%s: the text printed', (formula) => {
+    const text = evaluate(formula)[0][0] as string;
+    expect(README).toContain(`\`${formula}\` → \`${text}\``);
+  });
+});
