@@ -68,7 +68,7 @@ describe('the side pane in headless Chromium', () => {
     await page.click('#insert');
     await page.waitForFunction(() => (window as unknown as { __writes: unknown[] }).__writes.length === 1);
     const writes = await page.evaluate(() => (window as unknown as { __writes: { at: number[]; formulas: unknown[][] }[] }).__writes);
-    expect(writes[0].at).toEqual([1, 1, 6, 3]);
+    expect(writes[0].at).toEqual([1, 1, 7, 3]);
     expect(writes[0].formulas[0]).toEqual(['Reagent', 'Amount', 'Unit']);
     expect(writes[0].formulas[5][1]).toBe('=PROTIC.PH(B3:B4,C3:C4,D3:D4,C5,C6)');
 

@@ -37,8 +37,8 @@ describe('writing blocks into the sheet (office-addin-mock)', () => {
     const { mock, writes, target } = mockExcel(2, 2);
     (global as unknown as { Excel: unknown }).Excel = mock;
     const written = await writeBlockAtSelection((t, l) => phBlock(MIX, t, l));
-    expect(written).toBe('C3:E8');
-    expect(writes[0].at).toEqual([2, 2, 6, 3]);
+    expect(written).toBe('C3:E9');
+    expect(writes[0].at).toEqual([2, 2, 7, 3]);
     expect(target()).toEqual([
       ['Reagent', 'Amount', 'Unit'],
       ['KH2PO4', 3.4, 'g'],
@@ -46,12 +46,14 @@ describe('writing blocks into the sheet (office-addin-mock)', () => {
       ['Volume (L)', 1, ''],
       ['Temperature (°C)', 25, ''],
       ['pH', '=PROTIC.PH(C4:C5,D4:D5,E4:E5,D6,D7)', ''],
+      ['Warnings', '=PROTIC.WARNINGS(C4:C5,D4:D5,E4:E5,D6,D7)', ''],
     ]);
   });
 
   test('titrant, recipe and fractions blocks reference their own cells', () => {
     expect(titrantBlock(MIX, '1 M NaOH', 7.4, 0, 0).cells.slice(5)).toEqual([
       ['Titrant', '1 M NaOH', ''], ['Target pH', 7.4, ''], ['Titrant to add', '=PROTIC.TITRANT(B7,A2:A3,B2:B3,C2:C3,B4,B6,B5)', 'mL or g'],
+      ['Warnings (before titrant)', '=PROTIC.WARNINGS(A2:A3,B2:B3,C2:C3,B4,B5)', ''],
     ]);
     expect(recipeBlock({ acidForm: 'NaH2PO4·H2O', baseForm: 'Na2HPO4·7H2O', targetPH: 7.4, concentrationM: 0.1, volumeL: 1, temperatureC: 25 }, 0, 0).cells[7][0])
       .toBe('=PROTIC.RECIPE(B1,B2,B3,B4,B5,B6)');
@@ -69,6 +71,7 @@ describe('writing blocks into the sheet (office-addin-mock)', () => {
     const run = (b: Block) => evaluateSheet(b.cells.map((r) => r.map((c) => (c === '' ? null : c))));
     const ph = run(phBlock(MIX, 0, 0));
     expect(ph[5][1]).toBeCloseTo(impl.ph([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1), 12);
+    expect(ph[6][1]).toBe('none');
     const ti = run(titrantBlock(MIX, '1 M NaOH', 7.4, 0, 0));
     expect(ti[7][1]).toBeCloseTo(impl.titrant(7.4, [['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, '1 M NaOH'), 10);
     const re = run(recipeBlock({ acidForm: 'NaH2PO4·H2O', baseForm: 'Na2HPO4·7H2O', targetPH: 7.4, concentrationM: 0.1, volumeL: 1, temperatureC: 25 }, 0, 0));
