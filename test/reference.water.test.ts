@@ -20,15 +20,17 @@ describe('water density and the Debye–Hückel A', () => {
   ])('density at %d °C: %d kg/L', (t, ref, tol) => {
     expect(Math.abs(waterDensityKgPerL(t) - ref)).toBeLessThan(tol);
   });
+  // Robinson & Stokes tabulate A = 1.8246e6 (εT)^−3/2, the form for concentrations in mol/L (no density term):
+  // it is the engine's molal A divided by √ρw, and the 25 °C entry (0.5115, not the molal 0.5108) says so.
+  const molarScaleA = (t: number): number => debyeHuckelA(t) / Math.sqrt(waterDensityKgPerL(t));
   test.each([
-    [0, 0.4918, 0.001, 'Debye–Hückel A, molal, tabulated in Robinson & Stokes, Electrolyte Solutions (from memory)'],
-    [25, 0.5108, 0.0005, 'Debye–Hückel A, molal, tabulated in Robinson & Stokes (from memory)'],
-  ])('A at %d °C: %d', (t, ref, tol) => {
-    expect(Math.abs(debyeHuckelA(t) - ref)).toBeLessThan(tol);
+    [0, 0.4918, 'Robinson & Stokes, Electrolyte Solutions, Debye–Hückel A on the mol/L scale (from memory)'],
+    [25, 0.5115, 'Robinson & Stokes, Electrolyte Solutions, Debye–Hückel A on the mol/L scale (from memory)'],
+    [50, 0.5373, 'Robinson & Stokes, Electrolyte Solutions, Debye–Hückel A on the mol/L scale (from memory)'],
+  ])('A (mol/L scale) at %d °C: %d (%s)', (t, ref) => {
+    expect(Math.abs(molarScaleA(t) - ref)).toBeLessThan(0.0005); // the table's last digit, and permittivity data
   });
-  // Finding: the recalled 50 °C value is 0.003 above A from the Malmberg–Maryott permittivity;
-  // either the recollection or the older permittivity behind it; kept as a known miss.
-  test.failing('known miss: A at 50 °C: 0.5373 (Robinson & Stokes, from memory)', () => {
-    expect(Math.abs(debyeHuckelA(50) - 0.5373)).toBeLessThan(0.001);
+  test('A (molal) at 25 °C: 0.5108 (common practice)', () => {
+    expect(Math.abs(debyeHuckelA(25) - 0.5108)).toBeLessThan(0.0005);
   });
 });
