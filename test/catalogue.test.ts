@@ -1,5 +1,5 @@
-import { ACID_SYSTEMS, REAGENTS, strongIonById } from '../src/catalogue';
-import { compositionKey, dpKaPerK, molarMassOfReagent, parseFormula, pKaAt, resolveReagent } from '../src/engine';
+import { ACID_SYSTEMS, AMBIGUOUS_NAMES, REAGENTS, strongIonById } from '../src/catalogue';
+import { compositionKey, dpKaPerK, molarMassOfReagent, parseFormula, pKaAt, reagentByName, resolveReagent } from '../src/engine';
 
 describe('catalogue consistency', () => {
   test.each(ACID_SYSTEMS.map((s) => [s.id, s] as const))('%s: forms, steps and sources', (_, s) => {
@@ -48,6 +48,20 @@ describe('catalogue consistency', () => {
     const water = difference.O ?? 0;
     expect(Number.isInteger(water)).toBe(true);
     expect(difference).toEqual(water === 0 ? {} : { H: 2 * water, O: water });
+  });
+
+  // A wrong hydrate is a wrong weigh-out: a name that does not say its water belongs to the anhydrous form,
+  // except trade names that mean one hydrate by definition (common practice).
+  const HYDRATE_BY_DEFINITION = ['borax', 'borax decahydrate', 'washing soda', "Glauber's salt", 'Epsom salt', 'Rochelle salt'];
+  test.each(REAGENTS.filter((r) => r.hydrateWater > 0).map((r) => [r.id, r] as const))('%s: every name says its water', (_, r) => {
+    const silent = [r.name, ...r.aliases].filter((n) => !/hydrate|·\d*H2O/i.test(n) && !HYDRATE_BY_DEFINITION.includes(n));
+    expect(silent).toEqual([]);
+  });
+
+  test.each(AMBIGUOUS_NAMES.map((a) => [a.name, a] as const))('ambiguous name %s: not a reagent name, and every choice is one', (_, a) => {
+    expect(reagentByName(a.name)).toBeUndefined();
+    expect(a.choices.length).toBeGreaterThan(0);
+    for (const choice of a.choices) expect(reagentByName(choice)).toBeDefined();
   });
 
   test('no two solid reagents share an anhydrous composition and hydrate count', () => {

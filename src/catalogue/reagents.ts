@@ -60,8 +60,8 @@ export const REAGENTS: readonly Reagent[] = [
   r({ id: 'kh2cit', name: 'potassium dihydrogen citrate', aliases: ['monopotassium citrate'], formula: 'KH2C6H5O7', system: 'citrate', ions: { 'K+': 1 }, mm: 230.21 }),
   r({ id: 'nah2cit', name: 'sodium dihydrogen citrate', aliases: ['monosodium citrate'], formula: 'NaH2C6H5O7', system: 'citrate', ions: { 'Na+': 1 }, mm: 214.11 }),
   r({ id: 'na2hcit-15', name: 'disodium hydrogen citrate sesquihydrate', aliases: ['disodium citrate sesquihydrate'], formula: 'Na2HC6H5O7', hydrateWater: 1.5, system: 'citrate', ions: { 'Na+': 2 }, mm: 263.11 }),
-  r({ id: 'na3cit', name: 'trisodium citrate', aliases: ['sodium citrate anhydrous'], formula: 'Na3C6H5O7', system: 'citrate', ions: { 'Na+': 3 }, mm: 258.07 }),
-  r({ id: 'na3cit-2', name: 'trisodium citrate dihydrate', aliases: ['sodium citrate dihydrate', 'sodium citrate'], formula: 'Na3C6H5O7', hydrateWater: 2, system: 'citrate', ions: { 'Na+': 3 }, mm: 294.10 }),
+  r({ id: 'na3cit', name: 'trisodium citrate', aliases: ['sodium citrate anhydrous', 'sodium citrate tribasic anhydrous'], formula: 'Na3C6H5O7', system: 'citrate', ions: { 'Na+': 3 }, mm: 258.07 }),
+  r({ id: 'na3cit-2', name: 'trisodium citrate dihydrate', aliases: ['sodium citrate dihydrate', 'sodium citrate tribasic dihydrate'], formula: 'Na3C6H5O7', hydrateWater: 2, system: 'citrate', ions: { 'Na+': 3 }, mm: 294.10 }),
   r({ id: 'k3cit-1', name: 'tripotassium citrate monohydrate', aliases: ['potassium citrate monohydrate'], formula: 'K3C6H5O7', hydrateWater: 1, system: 'citrate', ions: { 'K+': 3 }, mm: 324.41 }),
   // acetate
   r({ id: 'acetic', name: 'acetic acid', aliases: ['ethanoic acid'], formula: 'CH3COOH', system: 'acetate', mm: 60.05 }),
@@ -74,6 +74,8 @@ export const REAGENTS: readonly Reagent[] = [
   // carbonate
   r({ id: 'nahco3', name: 'sodium bicarbonate', aliases: ['sodium hydrogen carbonate'], formula: 'NaHCO3', system: 'carbonate', ions: { 'Na+': 1 }, mm: 84.01 }),
   r({ id: 'na2co3', name: 'sodium carbonate', aliases: ['sodium carbonate anhydrous', 'soda ash'], formula: 'Na2CO3', system: 'carbonate', ions: { 'Na+': 2 }, mm: 105.99 }),
+  r({ id: 'na2co3-1', name: 'sodium carbonate monohydrate', formula: 'Na2CO3', hydrateWater: 1, system: 'carbonate', ions: { 'Na+': 2 }, mm: 124.00 }),
+  r({ id: 'nh4hco3', name: 'ammonium bicarbonate', aliases: ['ammonium hydrogen carbonate'], formula: 'NH4HCO3', systemsMap: { ammonium: 1, carbonate: 1 }, mm: 79.06 }),
   r({ id: 'na2co3-10', name: 'sodium carbonate decahydrate', aliases: ['washing soda'], formula: 'Na2CO3', hydrateWater: 10, system: 'carbonate', ions: { 'Na+': 2 }, mm: 286.14 }),
   r({ id: 'khco3', name: 'potassium bicarbonate', aliases: ['potassium hydrogen carbonate'], formula: 'KHCO3', system: 'carbonate', ions: { 'K+': 1 }, mm: 100.12 }),
   r({ id: 'k2co3', name: 'potassium carbonate', formula: 'K2CO3', system: 'carbonate', ions: { 'K+': 2 }, mm: 138.21 }),
@@ -88,12 +90,14 @@ export const REAGENTS: readonly Reagent[] = [
   r({ id: 'oxalic', name: 'oxalic acid', aliases: ['oxalic acid anhydrous'], formula: 'H2C2O4', system: 'oxalate', mm: 90.03 }),
   r({ id: 'na2ox', name: 'sodium oxalate', formula: 'Na2C2O4', system: 'oxalate', ions: { 'Na+': 2 }, mm: 134.00 }),
   // The pH 1.68 calibration salt: one K⁺ and two oxalate units, three protons between them.
-  r({ id: 'ktetrox-2', name: 'potassium tetroxalate dihydrate', aliases: ['potassium tetraoxalate dihydrate', 'potassium trihydrogen dioxalate dihydrate', 'potassium tetroxalate'],
+  r({ id: 'ktetrox-2', name: 'potassium tetroxalate dihydrate', aliases: ['potassium tetraoxalate dihydrate', 'potassium trihydrogen dioxalate dihydrate'],
     formula: 'KH3(C2O4)2', hydrateWater: 2, systemsMap: { oxalate: 2 }, ions: { 'K+': 1 }, mm: 254.19 }),
   r({ id: 'tartaric', name: 'L-tartaric acid', aliases: ['tartaric acid'], formula: 'C4H6O6', system: 'tartrate', mm: 150.09 }),
   r({ id: 'khtart', name: 'potassium hydrogen tartrate', aliases: ['potassium bitartrate', 'cream of tartar'], formula: 'KHC4H4O6', system: 'tartrate', ions: { 'K+': 1 }, mm: 188.18 }),
+  r({ id: 'knatart-4', name: 'potassium sodium tartrate tetrahydrate', aliases: ['Rochelle salt', 'sodium potassium tartrate tetrahydrate'], formula: 'KNaC4H4O6', hydrateWater: 4, system: 'tartrate', ions: { 'K+': 1, 'Na+': 1 }, mm: 282.22 }),
   r({ id: 'succinic', name: 'succinic acid', formula: 'C4H6O4', system: 'succinate', mm: 118.09 }),
   r({ id: 'na2succ-6', name: 'disodium succinate hexahydrate', aliases: ['sodium succinate hexahydrate'], formula: 'Na2C4H4O4', hydrateWater: 6, system: 'succinate', ions: { 'Na+': 2 }, mm: 270.14 }),
+  r({ id: 'nh4hcoo', name: 'ammonium formate', formula: 'HCOONH4', systemsMap: { formate: 1, ammonium: 1 }, mm: 63.06 }),
   r({ id: 'formic', name: 'formic acid', formula: 'HCOOH', system: 'formate', mm: 46.03 }),
   r({ id: 'nahcoo', name: 'sodium formate', formula: 'HCOONa', system: 'formate', ions: { 'Na+': 1 }, mm: 68.01 }),
   r({ id: 'lactic', name: 'lactic acid', aliases: ['DL-lactic acid'], formula: 'C3H6O3', system: 'lactate', mm: 90.08 }),
@@ -136,10 +140,10 @@ export const REAGENTS: readonly Reagent[] = [
   // amino acids, imidazole, EDTA
   r({ id: 'glycine', name: 'glycine', aliases: ['aminoacetic acid'], formula: 'C2H5NO2', system: 'glycine', systemCount: 1, ions: {}, mm: 75.07 }),
   r({ id: 'histidine', name: 'L-histidine', aliases: ['histidine'], formula: 'C6H9N3O2', system: 'histidine', mm: 155.15 }),
-  r({ id: 'histidine-hcl-1', name: 'L-histidine monohydrochloride monohydrate', aliases: ['histidine hydrochloride monohydrate', 'histidine HCl'], formula: 'C6H9N3O2·HCl', hydrateWater: 1, system: 'histidine', ions: { 'Cl-': 1 }, mm: 209.63 }),
+  r({ id: 'histidine-hcl-1', name: 'L-histidine monohydrochloride monohydrate', aliases: ['histidine hydrochloride monohydrate', 'L-histidine hydrochloride monohydrate', 'histidine HCl monohydrate'], formula: 'C6H9N3O2·HCl', hydrateWater: 1, system: 'histidine', ions: { 'Cl-': 1 }, mm: 209.63 }),
   r({ id: 'imidazole', name: 'imidazole', formula: 'C3H4N2', system: 'imidazole', mm: 68.08 }),
   r({ id: 'edta', name: 'EDTA free acid', aliases: ['edetic acid'], formula: 'C10H16N2O8', system: 'edta', mm: 292.24 }),
-  r({ id: 'na2edta-2', name: 'disodium EDTA dihydrate', aliases: ['EDTA disodium salt dihydrate', 'edetate disodium dihydrate', 'Na2EDTA'], formula: 'C10H14N2Na2O8', hydrateWater: 2, system: 'edta', ions: { 'Na+': 2 }, mm: 372.24 }),
+  r({ id: 'na2edta-2', name: 'disodium EDTA dihydrate', aliases: ['EDTA disodium salt dihydrate', 'edetate disodium dihydrate', 'disodium edetate dihydrate', 'Na2EDTA·2H2O'], formula: 'C10H14N2Na2O8', hydrateWater: 2, system: 'edta', ions: { 'Na+': 2 }, mm: 372.24 }),
   r({ id: 'na4edta', name: 'tetrasodium EDTA', aliases: ['EDTA tetrasodium salt'], formula: 'C10H12N2Na4O8', system: 'edta', ions: { 'Na+': 4 }, mm: 380.17 }),
   // strong acids and bases
   r({ id: 'hcl', name: 'hydrogen chloride', aliases: ['hydrochloric acid'], formula: 'HCl', ions: { 'Cl-': 1 }, mm: 36.46 }),
@@ -164,4 +168,25 @@ export const REAGENTS: readonly Reagent[] = [
   r({ id: 'cacl2-2', name: 'calcium chloride dihydrate', formula: 'CaCl2', hydrateWater: 2, ions: { 'Ca2+': 1, 'Cl-': 2 }, mm: 147.01 }),
   r({ id: 'mgcl2', name: 'magnesium chloride', aliases: ['magnesium chloride anhydrous'], formula: 'MgCl2', ions: { 'Mg2+': 1, 'Cl-': 2 }, mm: 95.21 }),
   r({ id: 'mgcl2-6', name: 'magnesium chloride hexahydrate', formula: 'MgCl2', hydrateWater: 6, ions: { 'Mg2+': 1, 'Cl-': 2 }, mm: 203.30 }),
+];
+
+/**
+ * Names the trade uses for more than one form (hydrates, or protonation states): they fail with the
+ * choices instead of silently picking one, since a wrong hydrate is a wrong weigh-out.
+ */
+export const AMBIGUOUS_NAMES: readonly { name: string; choices: string[] }[] = [
+  { name: 'sodium citrate', choices: ['trisodium citrate', 'trisodium citrate dihydrate', 'sodium dihydrogen citrate', 'disodium hydrogen citrate sesquihydrate'] },
+  { name: 'sodium citrate tribasic', choices: ['trisodium citrate', 'trisodium citrate dihydrate'] },
+  { name: 'potassium citrate', choices: ['tripotassium citrate monohydrate', 'potassium dihydrogen citrate'] },
+  { name: 'sodium phosphate', choices: ['sodium dihydrogen phosphate', 'sodium dihydrogen phosphate monohydrate', 'sodium dihydrogen phosphate dihydrate', 'disodium hydrogen phosphate', 'disodium hydrogen phosphate dihydrate', 'disodium hydrogen phosphate heptahydrate', 'disodium hydrogen phosphate dodecahydrate', 'trisodium phosphate', 'trisodium phosphate dodecahydrate'] },
+  { name: 'potassium phosphate', choices: ['potassium dihydrogen phosphate', 'dipotassium hydrogen phosphate', 'dipotassium hydrogen phosphate trihydrate', 'tripotassium phosphate'] },
+  { name: 'sodium succinate', choices: ['disodium succinate hexahydrate'] },
+  { name: 'histidine HCl', choices: ['L-histidine monohydrochloride monohydrate'] },
+  { name: 'histidine hydrochloride', choices: ['L-histidine monohydrochloride monohydrate'] },
+  { name: 'L-histidine hydrochloride', choices: ['L-histidine monohydrochloride monohydrate'] },
+  { name: 'Na2EDTA', choices: ['disodium EDTA dihydrate'] },
+  { name: 'disodium EDTA', choices: ['disodium EDTA dihydrate'] },
+  { name: 'disodium edetate', choices: ['disodium EDTA dihydrate'] },
+  { name: 'potassium tetroxalate', choices: ['potassium tetroxalate dihydrate'] },
+  { name: 'MES hydrate', choices: ['MES', 'MES monohydrate'] },
 ];

@@ -13,6 +13,7 @@ interface FailureFields {
 
 export type Failure =
   | (FailureFields & { code: 'unknown_reagent' })
+  | (FailureFields & { code: 'ambiguous_reagent' })
   | (FailureFields & { code: 'unknown_system' })
   | (FailureFields & { code: 'bad_formula'; position: number })
   | (FailureFields & { code: 'bad_unit' })
@@ -32,6 +33,7 @@ export const NOT_AVAILABLE_CODES: readonly FailureCode[] = ['unreachable_target'
 
 const HEADLINES: Record<FailureCode, string> = {
   unknown_reagent: 'unknown reagent',
+  ambiguous_reagent: 'the name does not say which form',
   unknown_system: 'unknown acid system',
   bad_formula: 'not a chemical formula',
   bad_unit: 'unit not allowed here',
@@ -44,6 +46,9 @@ const HEADLINES: Record<FailureCode, string> = {
   unreachable_target: 'target cannot be reached',
   no_convergence: 'the equilibrium did not converge',
 };
+
+/** Every failure code, for tests that each one has a message. */
+export const FAILURE_CODES = Object.keys(HEADLINES) as FailureCode[];
 
 /** The one place a failure becomes the sentence a user reads. */
 export function describeFailure(failure: Failure): string {

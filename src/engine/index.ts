@@ -3,9 +3,9 @@ export { ACTIVITY_MODELS, MODEL_LIMIT_MOLAL, ionicStrengthFactor, lnGammaPerZ2, 
 export type { ActivityModel } from './activity';
 export { chargeBalance } from './chargeBalance';
 export type { BalanceOut } from './chargeBalance';
-export { NOT_AVAILABLE_CODES, ProticError, describeFailure, fail, quote } from './failure';
+export { FAILURE_CODES, NOT_AVAILABLE_CODES, ProticError, describeFailure, fail, quote } from './failure';
 export type { Failure, FailureCode } from './failure';
-export { compositionKey, compositionMassGPerMol, molarMassGPerMol, parseFormula, withoutHydrogens } from './formula';
+export { compositionKey, compositionMassGPerMol, looksLikeFormula, molarMassGPerMol, parseFormula, withoutHydrogens } from './formula';
 export type { Composition, ParsedFormula } from './formula';
 export { addReagent, buildContents, cloneContents, molesPerLitreDispensed, parseReagentSpec } from './mixture';
 export type { Contents, MixtureRow, ReagentSpec, RowAudit } from './mixture';
@@ -14,8 +14,8 @@ export type { PreparedSystem, Problem } from './problem';
 export { recipeForTarget } from './recipe';
 export type { RecipeLine } from './recipe';
 export {
-  allReagents, allSystems, molarMassOfReagent, normaliseName, registryGeneration, resolveReagent, resolveSystem,
-  setCustomDefinitions, systemFor,
+  allReagents, allSystems, closestReagentNames, molarMassOfReagent, normaliseName, reagentByName, registryGeneration,
+  resolveReagent, resolveSystem, setCustomDefinitions, systemFor,
 } from './registry';
 export type { ResolvedReagent } from './registry';
 export { bufferCapacity, modelWarning, speciesRows } from './results';

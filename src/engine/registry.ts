@@ -1,4 +1,4 @@
-import { ACID_SYSTEMS, REAGENTS } from '../catalogue';
+import { ACID_SYSTEMS, AMBIGUOUS_NAMES, REAGENTS } from '../catalogue';
 import type { AcidSystem, Reagent } from '../catalogue';
 import { fail, ProticError, quote } from './failure';
 import { compositionKey, compositionMassGPerMol, looksLikeFormula, parseFormula } from './formula';
@@ -108,11 +108,53 @@ export function reagentByFormula(parsed: ParsedFormula): Reagent | undefined {
   return pool.find((c) => c.hydrateWater === parsed.hydrateWater) ?? pool[0];
 }
 
+const ambiguousNames = new Map(AMBIGUOUS_NAMES.map((a) => [normaliseName(a.name), a.choices]));
+
+/** Character trigrams of a normalised name, padded so word starts count. */
+function trigrams(text: string): Set<string> {
+  const padded = `  ${text} `;
+  const out = new Set<string>();
+  for (let i = 0; i + 3 <= padded.length; i++) out.add(padded.slice(i, i + 3));
+  return out;
+}
+
+/** Catalogue reagent names closest to a text (trigram Dice ≥ 0.45), best first: for an unknown-name message. */
+export function closestReagentNames(text: string, count = 3): string[] {
+  const key = normaliseName(text);
+  if (key.length < 3) return [];
+  const query = trigrams(key);
+  const best = new Map<Reagent, number>();
+  for (const reagent of allReagents()) {
+    for (const name of [reagent.name, ...reagent.aliases]) {
+      const other = trigrams(normaliseName(name));
+      let shared = 0;
+      for (const t of query) if (other.has(t)) shared++;
+      const dice = (2 * shared) / (query.size + other.size);
+      if (dice > (best.get(reagent) ?? 0)) best.set(reagent, dice);
+    }
+  }
+  return [...best.entries()].filter(([, dice]) => dice >= 0.45).sort((a, b) => b[1] - a[1]).slice(0, count).map(([r]) => r.name);
+}
+
+/** The catalogue reagent with this name or alias, if any. */
+export function reagentByName(text: string): Reagent | undefined {
+  return reagentNameIndex().get(normaliseName(text));
+}
+
 /** Resolves a catalogue name, alias or formula to a reagent. */
 export function resolveReagent(text: string, argument: string, row?: number): ResolvedReagent {
-  const byName = reagentNameIndex().get(normaliseName(text));
+  const key = normaliseName(text);
+  const byName = reagentNameIndex().get(key);
   if (byName) {
     return { reagent: byName, molarMassGPerMol: molarMassOfReagent(byName), hydrateWater: byName.hydrateWater, matchedBy: 'name' };
+  }
+  const choices = ambiguousNames.get(key);
+  if (choices) {
+    const reagents = choices.map((name) => reagentNameIndex().get(normaliseName(name))!);
+    const listed = reagents.map((r) => `${r.name} (${molarMassOfReagent(r).toFixed(2)} g/mol)`);
+    const example = reagents.find((r) => r.hydrateWater > 0) ?? reagents[0];
+    const exampleFormula = example.hydrateWater > 0 ? `${example.formula}·${example.hydrateWater}H2O` : example.formula;
+    fail({ code: 'ambiguous_reagent', argument, row, received: quote(text), expected: `one of ${listed.join(', ')}, or a formula with its water such as ${exampleFormula}` });
   }
   if (looksLikeFormula(text)) {
     const parsed = parseFormula(text, argument, row);
@@ -121,9 +163,11 @@ export function resolveReagent(text: string, argument: string, row?: number): Re
       return { reagent, molarMassGPerMol: compositionMassGPerMol(parsed.composition), hydrateWater: parsed.hydrateWater, matchedBy: 'formula' };
     }
   }
+  const closest = closestReagentNames(text);
   fail({
     code: 'unknown_reagent', argument, row, received: quote(text),
-    expected: 'a catalogue name or alias (sodium acetate trihydrate, Tris), a formula (Na2HPO4·7H2O) or a stock such as 1 M HCl; the pane lists the catalogue',
+    expected: 'a catalogue name or alias (sodium acetate trihydrate, Tris), a formula (Na2HPO4·7H2O) or a stock such as 1 M HCl; '
+      + (closest.length > 0 ? `closest catalogue names: ${closest.join(', ')}` : 'the pane lists the catalogue'),
   });
 }
 

@@ -1,9 +1,9 @@
 import { ADDIN_VERSION, CATALOGUE_VERSION } from '../catalogue';
 import {
   apparentPKas, bufferCapacity, buildContents, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
-  modelWarning, molarMassGPerMol, molarMassOfReagent, molesToUnit, normaliseName, parseModel, parseReagentSpec,
-  pKaAt, prepareProblem, recipeForTarget, registryGeneration, resolveSystem, speciesRows, solve,
-  titrantForTarget, titrantUnit, unitToMoles, withTitrant, allReagents,
+  looksLikeFormula, modelWarning, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
+  pKaAt, prepareProblem, quote, reagentByName, recipeForTarget, registryGeneration, resolveReagent, resolveSystem, speciesRows, solve,
+  titrantForTarget, titrantUnit, unitToMoles, withTitrant,
 } from '../engine';
 import type { ActivityModel, Contents, Equilibrium, MixtureRow } from '../engine';
 import {
@@ -199,9 +199,12 @@ export function recipe(acidForm: Cell, baseForm: Cell, targetPH: Cell, concentra
 
 export function molarMass(formula: Cell): number {
   const text = requiredText(formula, 'formula', 'a formula such as Na2HPO4·7H2O, or a catalogue name');
-  const key = normaliseName(text);
-  const byName = allReagents().find((r) => normaliseName(r.name) === key || r.aliases.some((a) => normaliseName(a) === key));
-  if (byName && !byName.liquid) return molarMassOfReagent(byName);
+  const byName = reagentByName(text);
+  if (byName?.liquid) {
+    fail({ code: 'bad_argument', argument: 'formula', received: quote(text), expected: `a solid or a formula: a liquid as sold has no single molar mass (its compound is ${byName.formula})` });
+  }
+  if (byName) return molarMassOfReagent(byName);
+  if (!looksLikeFormula(text)) resolveReagent(text, 'formula'); // an ambiguous or unknown name: the message says which, with choices
   return finite(molarMassGPerMol(text, 'formula'), 'molar mass');
 }
 
