@@ -127,6 +127,24 @@ describe('the side pane in headless Chromium', () => {
     await page.close();
   }, 60000);
 
+  test('the audit and temperature what-if blocks are written from the pane', async () => {
+    const { page } = await openPane();
+    type Writes = { __writes: { at: number[]; formulas: unknown[][] }[] };
+    await page.selectOption('#formula-kind', 'species');
+    await page.click('#insert');
+    await page.waitForFunction(() => (window as unknown as Writes).__writes.length === 1);
+    await page.selectOption('#formula-kind', 'temperatures');
+    await page.click('#insert');
+    await page.waitForFunction(() => (window as unknown as Writes).__writes.length === 2);
+    const writes = await page.evaluate(() => (window as unknown as Writes).__writes);
+    expect(writes[0].formulas[5][0]).toBe('=PROTIC.SPECIES(B3:B4,C3:C4,D3:D4,C5,C6)');
+    expect(writes[0].at[3]).toBe(5);
+    expect(writes[1].formulas[4]).toEqual(['Temperature (°C)', 'pH', 'Warnings']);
+    expect(writes[1].formulas[5]).toEqual([4, '=PROTIC.PH(B3:B4,C3:C4,D3:D4,C5,B7)', '=PROTIC.WARNINGS(B3:B4,C3:C4,D3:D4,C5,B7)']);
+    expect(await page.textContent('#status')).toMatch(/^Wrote B2:D/);
+    await page.close();
+  }, 60000);
+
   test('a hostile custom system in the workbook is rejected and runs no script', async () => {
     const hostile = JSON.stringify({ systems: [{ name: '<img src=x onerror="window.__pwned=1;alert(1)">', pKa: [1e308], charge: 0 }] });
     const { page, dialogs } = await openPane({ 'protic.customSystems': hostile });

@@ -2,7 +2,7 @@ import { OfficeMockObject } from 'office-addin-mock';
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
 import { clearCustomDefinitions } from '../src/engine';
 import * as impl from '../src/functions/impl';
-import { fractionsBlock, phBlock, recipeBlock, titrantBlock } from '../src/taskpane/blocks';
+import { WHAT_IF_TEMPERATURES_C, fractionsBlock, phBlock, recipeBlock, speciesBlock, temperatureTableBlock, titrantBlock } from '../src/taskpane/blocks';
 import type { Block } from '../src/taskpane/blocks';
 import { SETTINGS_KEY, definitionFromInputs, loadFromSettings, saveDefinition } from '../src/taskpane/customStore';
 import type { SettingsLike } from '../src/taskpane/customStore';
@@ -77,6 +77,30 @@ describe('writing blocks into the sheet (office-addin-mock)', () => {
     const re = run(recipeBlock({ acidForm: 'NaH2PO4·H2O', baseForm: 'Na2HPO4·7H2O', targetPH: 7.4, concentrationM: 0.1, volumeL: 1, temperatureC: 25 }, 0, 0));
     expect(re[7][0]).toBe('NaH2PO4·H2O');
     expect(re[8][1] as number).toBeGreaterThan(0);
+  });
+
+  test('the audit block reserves its spill and computes the same table as SPECIES', () => {
+    const table = impl.species([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, 25);
+    const block = speciesBlock(MIX, table.length, 0, 0);
+    expect(block.cells[5]).toEqual(['=PROTIC.SPECIES(A2:A3,B2:B3,C2:C3,B4,B5)', '', '', '', '']);
+    expect(block.cells).toHaveLength(5 + table.length);
+    const v = evaluateSheet(block.cells.map((r) => r.map((c) => (c === '' ? null : c))));
+    expect(v.slice(5, 5 + table.length).map((r) => r.slice(0, 5))).toEqual(table);
+  });
+
+  test('the temperature what-if table: an editable temperature column, pH and warnings per row', () => {
+    const block = temperatureTableBlock(MIX, WHAT_IF_TEMPERATURES_C, 0, 0);
+    expect(block.cells.slice(0, 5)).toEqual([
+      ['Reagent', 'Amount', 'Unit'], ['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'], ['Volume (L)', 1, ''], ['Temperature (°C)', 'pH', 'Warnings'],
+    ]);
+    expect(block.cells[5]).toEqual([4, '=PROTIC.PH(A2:A3,B2:B3,C2:C3,B4,A6)', '=PROTIC.WARNINGS(A2:A3,B2:B3,C2:C3,B4,A6)']);
+    const v = evaluateSheet(block.cells.map((r) => r.map((c) => (c === '' ? null : c))));
+    WHAT_IF_TEMPERATURES_C.forEach((t, i) => {
+      expect(v[5 + i][1]).toBeCloseTo(impl.ph([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, t), 12);
+      expect(v[5 + i][2]).toBe('none');
+    });
+    // phosphate pKa2 falls as it warms (ΔrH° > 0), so the pH does too
+    for (let i = 1; i < WHAT_IF_TEMPERATURES_C.length; i++) expect(v[5 + i][1] as number).toBeLessThan(v[4 + i][1] as number);
   });
 
   test('text that Excel would read as a formula is written as text', () => {

@@ -72,6 +72,30 @@ export function titrantBlock(m: MixtureInput, titrant: string, targetPH: number,
   return { cells: pad(rows) };
 }
 
+/** The audit view: the mixture, then SPECIES with blank cells reserved for its spill (rows × 5). */
+export function speciesBlock(m: MixtureInput, spillRows: number, top: number, left: number): Block {
+  const { rows, refs } = mixtureRows(m, top, left);
+  rows.push([`=PROTIC.SPECIES(${mixtureArgs(refs)})`, '', '', '', '']);
+  for (let i = 1; i < spillRows; i++) rows.push(['', '', '', '', '']);
+  return { cells: pad(rows) };
+}
+
+/** Common working temperatures, °C: cold room, ambient range, 37 °C (common practice). Cells the user can edit. */
+export const WHAT_IF_TEMPERATURES_C = [4, 10, 15, 20, 25, 30, 37, 40];
+
+/** A what-if table: the mixture at each temperature in a column of editable cells, pH and warnings beside it. */
+export function temperatureTableBlock(m: MixtureInput, temperaturesC: number[], top: number, left: number): Block {
+  const { rows, refs, next } = mixtureRows(m, top, left);
+  rows.pop(); // the table's own column replaces the single temperature cell
+  rows.push(['Temperature (°C)', 'pH', 'Warnings']);
+  temperaturesC.forEach((t, i) => {
+    const cell = address(next + i, left);
+    const args = `${refs.reagents},${refs.amounts},${refs.units},${refs.volume},${cell}`;
+    rows.push([t, `=PROTIC.PH(${args})`, `=PROTIC.WARNINGS(${args})`]);
+  });
+  return { cells: pad(rows) };
+}
+
 export interface RecipeInput { acidForm: string; baseForm: string; targetPH: number; concentrationM: number; volumeL: number; temperatureC: number }
 
 export function recipeBlock(r: RecipeInput, top: number, left: number): Block {

@@ -3,7 +3,7 @@ import { ADDIN_VERSION, CATALOGUE_VERSION } from '../catalogue';
 import { ProticError, parseReagentSpec, systemFor, titrantUnit } from '../engine';
 import * as impl from '../functions/impl';
 import { toCellFailure } from '../functions/outcome';
-import { fractionsBlock, phBlock, recipeBlock, titrantBlock } from './blocks';
+import { WHAT_IF_TEMPERATURES_C, fractionsBlock, phBlock, recipeBlock, speciesBlock, temperatureTableBlock, titrantBlock } from './blocks';
 import type { Block } from './blocks';
 import { searchCatalogue, suggestedForms, systemView } from './catalogueView';
 import { definitionFromInputs, loadFromSettings, saveDefinition } from './customStore';
@@ -162,6 +162,7 @@ function checkBeforeInsert(kind: string): void {
   if (kind === 'titrant') impl.titrant(targetPH, reagents, amounts, units, volumeL, str('titrant'), temperatureC);
   if (kind === 'recipe') impl.recipe(str('acid-form'), str('base-form'), targetPH, num('concentration'), volumeL, temperatureC);
   if (kind === 'fractions') impl.fractions(state.systemId, num('from-ph'), temperatureC, ionicStrengthM);
+  if (kind === 'species' || kind === 'temperatures') impl.species(reagents, amounts, units, volumeL, temperatureC);
 }
 
 function blockBuilder(kind: string): (top: number, left: number) => Block {
@@ -174,6 +175,12 @@ function blockBuilder(kind: string): (top: number, left: number) => Block {
       const sys = systemFor(state.systemId);
       return (t, l) => fractionsBlock({ system: sys.name, forms: sys.forms, fromPH: num('from-ph'), toPH: num('to-ph'), stepPH: num('step-ph'), temperatureC, ionicStrengthM }, t, l);
     }
+    case 'species': {
+      const [reagents, amounts, units, volumeL] = mixtureArgs();
+      const spillRows = impl.species(reagents, amounts, units, volumeL, temperatureC).length;
+      return (t, l) => speciesBlock(m, spillRows, t, l);
+    }
+    case 'temperatures': return (t, l) => temperatureTableBlock(m, WHAT_IF_TEMPERATURES_C, t, l);
     default: return (t, l) => phBlock(m, t, l);
   }
 }
@@ -183,7 +190,7 @@ async function insert(): Promise<void> {
   try {
     checkBeforeInsert(kind);
     const written = await writeBlockAtSelection(blockBuilder(kind));
-    if (kind === 'ph' || kind === 'titrant') setResultStatus(`Wrote ${written}.`);
+    if (kind === 'ph' || kind === 'titrant' || kind === 'species') setResultStatus(`Wrote ${written}.`);
     else setStatus(`Wrote ${written}.`);
   } catch (error) {
     setStatus(failureText(error), true);
@@ -226,6 +233,7 @@ function build(): void {
   const kind = el('select', {}, [
     el('option', { value: 'ph' }, ['pH of the mixture']), el('option', { value: 'titrant' }, ['Titrant for the target pH']),
     el('option', { value: 'recipe' }, ['Recipe: grams of two forms']), el('option', { value: 'fractions' }, ['Fractions table across pH']),
+    el('option', { value: 'species' }, ['Audit: every species (SPECIES)']), el('option', { value: 'temperatures' }, ['What-if: pH across temperatures']),
   ]);
   const unitSelect = (value: string): HTMLSelectElement => {
     const s = el('select', {}, ['g', 'mg', 'mol', 'mmol', 'M', 'mM', 'mL', 'L'].map((u) => el('option', { value: u }, [u])));
