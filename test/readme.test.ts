@@ -25,7 +25,7 @@ const NUMERIC: [string, string, (v: SheetValue[][]) => SheetValue[]][] = [
   ['=PROTIC.CURVE(A1:A2,B1:B2,C1:C2,1,"1 M NaOH",20,3)', '0, 6.8759 / 10, 7.2280 / 20, 7.8016', (v) => v.slice(0, 3).flatMap((r) => r.slice(0, 2))],
   ['=PROTIC.FRACTIONS("phosphate",7.2)', '4.43e-6, 0.49884, 0.50115, 3.55e-6', (v) => v[0].slice(0, 4)],
   ['=PROTIC.IONICSTRENGTH(A1:A2,B1:B2,C1:C2,1)', '0.10001', (v) => [v[0][0]]],
-  ['=PROTIC.CAPACITY(A1:A2,B1:B2,C1:C2,1)', '0.028781', (v) => [v[0][0]]],
+  ['=PROTIC.CAPACITY(A1:A2,B1:B2,C1:C2,1)', '0.029997', (v) => [v[0][0]]],
   ['=PROTIC.PKA("Tris",1,37)', '7.7527', (v) => [v[0][0]]],
   ['=PROTIC.PKA("phosphate",2,25,0.15)', '6.8389', (v) => [v[0][0]]],
   ['=PROTIC.MOLARMASS("Na2HPO4·7H2O")', '268.06', (v) => [v[0][0]]],

@@ -1,8 +1,7 @@
 import { MODEL_LIMIT_MOLAL } from './activity';
-import { chargeBalance } from './chargeBalance';
-import type { BalanceOut } from './chargeBalance';
 import type { Problem } from './problem';
-import type { Equilibrium } from './solver';
+import type { Equilibrium, JointJacobian } from './solver';
+import { jointJacobian, lnGammaZ2For } from './solver';
 import { systemMoments } from './speciation';
 
 export interface SpeciesRow {
@@ -39,15 +38,21 @@ function supDigits(digits: string): string {
   return digits.split('').map((d) => map[d] ?? d).join('');
 }
 
-const scratch: BalanceOut = { derivative: 0, ionicStrengthM: 0, chargeScaleM: 0 };
+const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scale: 0, ionicStrengthM: 0 };
 
 /**
- * Buffer capacity β = dCb/dpH, mol/(L·pH), analytic: ln 10 (h + Kw/h + Σ C var(protons)),
- * water included, activity coefficients held at their equilibrium values.
+ * Buffer capacity β = dCb/dpH = −dCa/dpH, mol/(L·pH) (IUPAC), analytic, water included: implicit
+ * derivatives of the solved system, so the ionic strength follows the speciation as base goes in.
+ * The titrant's own counter-ion is left out, so adding base and adding acid give the same β.
  */
 export function bufferCapacity(eq: Equilibrium): number {
-  chargeBalance(eq.problem, eq.lnH, scratch);
-  return Math.LN10 * scratch.derivative;
+  const p = eq.problem;
+  jointJacobian(p, eq.lnH, lnGammaZ2For(p, eq.ionicStrengthM), joint);
+  // d(ln h, L)/dCb = −J⁻¹ (1, 0): one mol/L of strong-base charge; pH = −(ln h + L − ln ρw)/ln 10
+  const det = joint.j11 * joint.j22 - joint.j12 * joint.j21;
+  const dy = -joint.j22 / det;
+  const dL = joint.j21 / det;
+  return -Math.LN10 / (dy + dL);
 }
 
 /**

@@ -121,37 +121,52 @@ export function lnHFromPH(problem: Problem, pH: number): number {
 
 const jac: JacobianOut = { f: 0, dfdy: 0, dfdL: 0, ionicStrengthM: 0, dIdy: 0, dIdL: 0, chargeScaleM: 0 };
 
+/** The joint system at (y, L): the charge balance f, the activity consistency F2 = L − g(I), and their Jacobian. */
+export interface JointJacobian { f: number; F2: number; j11: number; j12: number; j21: number; j22: number; scale: number; ionicStrengthM: number }
+
+/** Evaluates the joint system (the solver's Newton matrix; also the implicit derivatives behind β). */
+export function jointJacobian(problem: Problem, y: number, L: number, out: JointJacobian): void {
+  setActivity(problem, L);
+  chargeBalanceJacobian(problem, y, jac);
+  const rho = Math.exp(problem.lnWaterDensity);
+  const ionicMolal = jac.ionicStrengthM / rho;
+  // dg/dI (per mol/L); near I = 0 the Davies slope is unbounded, so hold L there for one step
+  const dg = ionicMolal > 1e-12 ? (-problem.debyeHuckelA * Math.LN10 * ionicStrengthFactorSlope(problem.model, ionicMolal)) / rho : 0;
+  out.f = jac.f;
+  out.F2 = L - lnGammaZ2For(problem, jac.ionicStrengthM);
+  out.j11 = jac.dfdy;
+  out.j12 = jac.dfdL;
+  out.j21 = -dg * jac.dIdy;
+  out.j22 = 1 - dg * jac.dIdL;
+  out.scale = jac.chargeScaleM;
+  out.ionicStrengthM = jac.ionicStrengthM;
+}
+
+const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scale: 0, ionicStrengthM: 0 };
+
 /**
  * Joint Newton in (ln h, L) on the charge balance f(y, L) = 0 and the activity consistency
  * L − g(I(y, L)) = 0, with analytic derivatives; converges in a few evaluations from a fair start.
  * Returns undefined when it does not settle, and the caller falls back to the bracketed method.
  */
 function solveJoint(problem: Problem, yStart: number | undefined): { y: number; f: number; scale: number; ionic: number } | undefined {
-  const rho = Math.exp(problem.lnWaterDensity);
-  const a = problem.debyeHuckelA * Math.LN10;
   let L = lnGammaZ2For(problem, startingIonicStrength(problem));
   let y = yStart ?? startingLnH(problem, L);
   for (let iter = 0; iter < 40; iter++) {
-    setActivity(problem, L);
-    chargeBalanceJacobian(problem, y, jac);
-    const ionicMolal = jac.ionicStrengthM / rho;
-    const g = lnGammaZ2For(problem, jac.ionicStrengthM);
-    const F2 = L - g;
-    // dg/dI (per mol/L); near I = 0 the Davies slope is unbounded, so hold L there for one step
-    const dg = ionicMolal > 1e-12 ? (-a * ionicStrengthFactorSlope(problem.model, ionicMolal)) / rho : 0;
-    const j11 = jac.dfdy, j12 = jac.dfdL, j21 = -dg * jac.dIdy, j22 = 1 - dg * jac.dIdL;
+    jointJacobian(problem, y, L, joint);
+    const { f, F2, j11, j12, j21, j22 } = joint;
     const det = j11 * j22 - j12 * j21;
     if (!(Math.abs(det) > 0) || !Number.isFinite(det)) return undefined;
-    let dy = (-jac.f * j22 + F2 * j12) / det;
-    let dL = (-F2 * j11 + jac.f * j21) / det;
+    let dy = (-f * j22 + F2 * j12) / det;
+    let dL = (-F2 * j11 + f * j21) / det;
     if (!Number.isFinite(dy) || !Number.isFinite(dL)) return undefined;
-    if (Math.abs(jac.f) <= 1e-15 * jac.chargeScaleM && Math.abs(F2) <= LN_GAMMA_TOLERANCE) {
-      return { y, f: jac.f, scale: jac.chargeScaleM, ionic: jac.ionicStrengthM };
+    if (Math.abs(f) <= 1e-15 * joint.scale && Math.abs(F2) <= LN_GAMMA_TOLERANCE) {
+      return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM };
     }
     // quadratic convergence: a step this small means this point is already the root to about
-    // 1e-12 in ln h, and the values in `jac` are this point's own, so no further evaluation
+    // 1e-12 in ln h, and the values in `joint` are this point's own, so no further evaluation
     if (Math.abs(dy) < 1e-11 && Math.abs(dL) < 1e-12) {
-      return { y, f: jac.f, scale: jac.chargeScaleM, ionic: jac.ionicStrengthM };
+      return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM };
     }
     if (Math.abs(dy) > MAX_STEP_LN) { const k = MAX_STEP_LN / Math.abs(dy); dy *= k; dL *= k; }
     if (Math.abs(dL) > 0.5) dL = Math.sign(dL) * 0.5;

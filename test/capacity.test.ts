@@ -1,0 +1,55 @@
+import { pKaAt, pKw, waterDensityKgPerL } from '../src/engine';
+import { ACID_SYSTEMS } from '../src/catalogue';
+import * as impl from '../src/functions/impl';
+
+const LN10 = Math.LN10;
+// Constants and pH are molal; in mol/L, ideal: [H⁺] = 10^−pH·ρw and [OH⁻] = Kw·ρw²/[H⁺].
+const RHO_25 = waterDensityKgPerL(25);
+
+describe('buffer capacity β = dCb/dpH', () => {
+  // Van Slyke: a monoprotic buffer has its greatest capacity at pH = pKa, ln10·C/4 ≈ 0.576·C, plus water's part.
+  test('0.1 M acetate at pH = pKa, ideal: ln10·C/4 plus water (common practice)', () => {
+    const beta = impl.capacity([['acetic acid'], ['sodium acetate']], [[0.1], [0.1]], 'M', null, 25, 'ideal');
+    const pH = impl.ph([['acetic acid'], ['sodium acetate']], [[0.1], [0.1]], 'M', null, 25, 'ideal');
+    const pKa = pKaAt(ACID_SYSTEMS.find((s) => s.id === 'acetate')!.steps[0], 25);
+    const h = 10 ** -pH * RHO_25, kw = 10 ** -pKw(25) * RHO_25 ** 2, ka = 10 ** -pKa * RHO_25;
+    const expected = LN10 * (0.2 * ka * h / (ka + h) ** 2 + h + kw / h); // C = 0.2 M total acetate
+    expect(Math.abs(beta / expected - 1)).toBeLessThan(1e-9);
+    expect(Math.abs(beta - LN10 * 0.2 / 4)).toBeLessThan(2e-4); // pH sits within 0.001 of pKa
+  });
+
+  test('pure water at 25 °C: ln10·(h + Kw/h) ≈ 4.6e-7 (common practice)', () => {
+    const beta = impl.capacity([['NaCl']], [[1e-9]], 'M', null, 25, 'ideal');
+    expect(Math.abs(beta / (LN10 * 2 * 10 ** (-pKw(25) / 2) * RHO_25) - 1)).toBeLessThan(1e-6);
+  });
+
+  // Numerical check of the analytic value: add a little strong base and a little strong acid.
+  test.each([
+    ['phosphate 3.40 g + 3.55 g in 1 L', ['KH2PO4', 'Na2HPO4'], [3.4 / 136.086, 3.55 / 141.959]],
+    ['citrate 0.05 M + 0.05 M', ['citric acid', 'trisodium citrate'], [0.05, 0.05]],
+    ['Tris 0.05 M + Tris HCl 0.05 M', ['Tris', 'Tris hydrochloride'], [0.05, 0.05]],
+  ])('%s, ideal: β matches 2δ/ΔpH to 1e-6', (_, reagents, molar) => {
+    const delta = 1e-6;
+    const pHWith = (naoh: number, hcl: number): number =>
+      impl.ph([...reagents.map((r) => [r]), ['NaOH'], ['HCl']], [...molar.map((m) => [m]), [naoh], [hcl]], 'M', null, 25, 'ideal');
+    const beta = impl.capacity(reagents.map((r) => [r]), molar.map((m) => [m]), 'M', null, 25, 'ideal');
+    const numeric = (2 * delta) / (pHWith(delta, 0) - pHWith(0, delta));
+    expect(Math.abs(numeric / beta - 1)).toBeLessThan(1e-6);
+  });
+
+  // Davies: the ionic strength moves as base goes in. Adding base (Na⁺) and acid (Cl⁻) each raise I by δ/2 through
+  // the counter-ion, which cancels in the central difference, as it does in β.
+  test.each([
+    ['phosphate 0.025 + 0.025 M', ['KH2PO4', 'Na2HPO4'], [0.025, 0.025]],
+    ['acetate 0.1 + 0.1 M', ['acetic acid', 'sodium acetate'], [0.1, 0.1]],
+    ['Tris 0.05 + Tris HCl 0.05 M', ['Tris', 'Tris hydrochloride'], [0.05, 0.05]],
+    ['citrate 0.05 + 0.05 M', ['citric acid', 'trisodium citrate'], [0.05, 0.05]],
+  ])('%s, davies: β matches the central difference 2δ/ΔpH to 1e-6', (_, reagents, molar) => {
+    const delta = 1e-6;
+    const pHWith = (naoh: number, hcl: number): number =>
+      impl.ph([...reagents.map((r) => [r]), ['NaOH'], ['HCl']], [...molar.map((m) => [m]), [naoh], [hcl]], 'M', null, 25, 'davies');
+    const numeric = (2 * delta) / (pHWith(delta, 0) - pHWith(0, delta));
+    const beta = impl.capacity(reagents.map((r) => [r]), molar.map((m) => [m]), 'M', null, 25, 'davies');
+    expect(Math.abs(numeric / beta - 1)).toBeLessThan(1e-6);
+  });
+});
