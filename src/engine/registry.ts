@@ -121,7 +121,7 @@ function trigrams(text: string): Set<string> {
 /** Catalogue reagent names closest to a text (trigram Dice ≥ 0.45), best first: for an unknown-name message. */
 export function closestReagentNames(text: string, count = 3): string[] {
   const key = normaliseName(text);
-  if (key.length < 3) return [];
+  if (key.length < 3 || key.length > 100) return []; // no catalogue name is that long: not a misspelling
   const query = trigrams(key);
   const best = new Map<Reagent, number>();
   for (const reagent of allReagents()) {
