@@ -192,6 +192,12 @@ describe('catalogue view', () => {
     expect(suggestedForms(id, pH, 25)).toEqual({ acid, base });
   });
 
+  test('a system view states what its model leaves out, in the words the cell warnings use', () => {
+    expect(systemView('borate', 25, 0).notes).toBe('Monomeric borate only. Above 0.025 mol/L: polyborate ions form, which this monomeric model leaves out; the further below pH 9, the higher the computed pH reads.');
+    expect(systemView('edta', 25, 0).notes).toMatch(/^With Ca2\+ or Mg2\+: EDTA binds Ca²⁺ and Mg²⁺ strongly/);
+    expect(systemView('hepes', 25, 0).notes).toBe('Only the step in the working range is modelled; a carboxyl or sulfonate step below pH 3 is not.');
+  });
+
   test('a system view gives pKa at T and I, dpKa/dT, forms with molar masses and sources', () => {
     const v = systemView('phosphate', 37, 0.15);
     expect(v.steps[1].pKa).toBeLessThan(7.198);

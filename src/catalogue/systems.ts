@@ -53,7 +53,7 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['B(OH)3', 'B(OH)4⁻'],
     steps: [step(9.237, 13.8, -240)],
     temperatureRangeC: RANGE_GKL,
-    notes: 'Monomeric borate only; polyborates above about 0.025 mol/L total boron are not modelled.',
+    notes: 'Monomeric borate only.',
     concentrationLimit: {
       maxTotalM: 0.025,
       reason: 'polyborate ions form, which this monomeric model leaves out; the further below pH 9, the higher the computed pH reads',
@@ -175,7 +175,6 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     steps: [step(0.0), step(1.5), step(2.0, 1.3), step(2.69, 1.7), step(6.273, 16.4), step(10.948, 23.4)],
     temperatureRangeC: [5, 45],
     bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'EDTA binds Ca²⁺ and Mg²⁺ strongly, releasing protons, which the model leaves out: the pH reads high', source: 'common practice' },
-    notes: 'Metal complexation is not modelled: Ca²⁺ and Mg²⁺ are taken as free ions.',
   },
 ];
 

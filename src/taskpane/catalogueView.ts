@@ -108,5 +108,10 @@ export function systemView(systemId: string, temperatureC: number, ionicStrength
   const reagents = allReagents().filter((r) => r.systems.some((x) => x.systemId === s.id)).map((r) => ({
     name: r.name, formula: r.hydrateWater > 0 ? `${r.formula}·${r.hydrateWater}H2O` : r.formula, molarMassGPerMol: molarMassOfReagent(r),
   }));
-  return { id: s.id, name: s.name, steps, forms, reagents, rangeC: s.temperatureRangeC, notes: s.notes ?? '' };
+  // What the model leaves out, as the cells' warnings will say it
+  const limits = [
+    ...(s.concentrationLimit ? [`Above ${s.concentrationLimit.maxTotalM} mol/L: ${s.concentrationLimit.reason}.`] : []),
+    ...(s.bindsIons ? [`With ${s.bindsIons.ionIds.join(' or ')}: ${s.bindsIons.reason}.`] : []),
+  ];
+  return { id: s.id, name: s.name, steps, forms, reagents, rangeC: s.temperatureRangeC, notes: [s.notes ?? '', ...limits].filter((n) => n !== '').join(' ') };
 }
