@@ -34,6 +34,18 @@ describe('model validity', () => {
   ])('SPECIES warns when %s meet a metal ion the model does not bind', (reagents, molar, pattern) => {
     expect(warningOf(reagents, molar)).toMatch(pattern);
   });
+  test.each([
+    // reagents, mol/L, the warning, or none
+    [['NaHCO3', 'HCl'], [0.1, 0.1], /^CO2\(aq\) 0\.0997 mol\/L is above its solubility, about 0\.034 mol\/L at 25 °C: CO2 comes out as bubbles/],
+    [['NaHCO3', 'Na2CO3'], [0.025, 0.025], /^none$/],
+    [['disodium EDTA dihydrate', 'HCl'], [0.05, 0.1], /^H4Y 0\.0\d+ mol\/L is above its solubility, about 0\.0017 mol\/L at 25 °C: EDTA free acid may precipitate/],
+    [['disodium EDTA dihydrate'], [0.05], /^none$/],
+    [['EDTA free acid', 'NaOH'], [0.05, 0.2], /^none$/], // dissolved as the base goes in
+    [['phthalic acid'], [0.1], /^H2Phth 0\.0\d+ mol\/L is above its solubility/],
+    [['potassium hydrogen phthalate'], [0.05], /^none$/],
+  ])('a form above its solubility: %s at %s mol/L', (reagents, molar, pattern) => {
+    expect(warningOf(reagents as string[], molar as number[])).toMatch(pattern);
+  });
   test('warnings join: a binding warning and an ionic-strength warning together', () => {
     expect(warningOf(['disodium EDTA dihydrate', 'MgCl2', 'NaCl'], [0.001, 0.002, 0.8])).toMatch(/range \(about 0\.5 mol\/kg\).*; EDTA with Mg2\+/);
   });

@@ -44,6 +44,10 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['CO2(aq)', 'HCO3⁻', 'CO3²⁻'],
     steps: [step(6.351, 9.15, -371), step(10.329, 14.7, -249)],
     temperatureRangeC: [0, 50],
+    formSolubility: {
+      formIndex: 0, maxM: 0.034, temperatureC: 25, source: "Henry's law constant of CO2, about 0.034 mol/(L·atm) at 25 °C (from memory)",
+      consequence: 'CO2 comes out as bubbles, and in an open vessel the pH rises above this closed-system value',
+    },
     bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'carbonate ion pairs and CaCO3 precipitation are not modelled', source: 'common practice' },
     notes: 'Closed system: no exchange of CO2 with air. CO2(aq) and H2CO3 are counted together.',
   },
@@ -53,6 +57,10 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['B(OH)3', 'B(OH)4⁻'],
     steps: [step(9.237, 13.8, -240)],
     temperatureRangeC: RANGE_GKL,
+    formSolubility: {
+      formIndex: 0, maxM: 0.92, temperatureC: 25, source: 'CRC Handbook, boric acid about 57 g/L in water at 25 °C (from memory)',
+      consequence: 'boric acid may crystallise out',
+    },
     notes: 'Monomeric borate only.',
     concentrationLimit: {
       maxTotalM: 0.025,
@@ -68,6 +76,10 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     // pK1 = 561.57/T − 1.2843 + 0.0078833·T; a recalled +2.7 kJ/mol had the sign wrong.
     steps: [step(2.95, -2.67, -90, HPA_1945), step(5.408, -2.17, -295)],
     temperatureRangeC: RANGE_GKL,
+    formSolubility: {
+      formIndex: 0, maxM: 0.036, temperatureC: 25, source: 'CRC Handbook, phthalic acid about 6 g/L in water at 25 °C (from memory)',
+      consequence: 'phthalic acid may crystallise out (solutions near the limit can stay supersaturated for a while)',
+    },
   },
   {
     id: 'oxalate', name: 'oxalate', aliases: ['oxalic acid'],
@@ -160,6 +172,10 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['H3His²⁺', 'H2His⁺', 'HHis±', 'His⁻'],
     steps: [step(1.54, 3.6), step(6.07, 29.5, 176), step(9.34, 43.8, -233)],
     temperatureRangeC: RANGE_GKL,
+    formSolubility: {
+      formIndex: 2, maxM: 0.27, temperatureC: 25, source: 'CRC Handbook, L-histidine about 42 g/L in water at 25 °C (from memory)',
+      consequence: 'histidine may crystallise out',
+    },
   },
   {
     id: 'imidazole', name: 'imidazole', aliases: ['glyoxaline'],
@@ -174,6 +190,10 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['H6Y²⁺', 'H5Y⁺', 'H4Y', 'H3Y⁻', 'H2Y²⁻', 'HY³⁻', 'Y⁴⁻'],
     steps: [step(0.0), step(1.5), step(2.0, 1.3), step(2.69, 1.7), step(6.273, 16.4), step(10.948, 23.4)],
     temperatureRangeC: [5, 45],
+    formSolubility: {
+      formIndex: 2, maxM: 0.0017, temperatureC: 25, source: 'Merck Index, EDTA free acid about 0.5 g/L in water at 25 °C (from memory)',
+      consequence: 'EDTA free acid may precipitate; it dissolves only as base is added',
+    },
     bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'EDTA binds Ca²⁺ and Mg²⁺ strongly, releasing protons, which the model leaves out: the pH reads high', source: 'common practice' },
   },
 ];

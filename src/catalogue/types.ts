@@ -26,6 +26,11 @@ export interface AcidSystem {
   notes?: string;
   /** above this total of the system, mol/L, the catalogue's model of it no longer holds: results carry a warning */
   concentrationLimit?: { maxTotalM: number; reason: string; source: string };
+  /**
+   * the solubility of one form (index into `forms`), mol/L: above it at equilibrium the solution cannot exist as
+   * modelled, and results carry a warning
+   */
+  formSolubility?: { formIndex: number; maxM: number; temperatureC: number; consequence: string; source: string };
   /** metal ions the system binds or precipitates with, which the model leaves out: results carry a warning */
   bindsIons?: { ionIds: string[]; reason: string; source: string };
   /** true for systems a user defined (pane or --systems file) */

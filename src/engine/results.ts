@@ -75,6 +75,16 @@ export function modelWarning(eq: Equilibrium): string {
     if (cap && p.totalsM[i] > cap.maxTotalM) {
       warnings.push(`${s.system.name} total ${p.totalsM[i].toPrecision(3)} mol/L is above ${cap.maxTotalM} mol/L: ${cap.reason}`);
     }
+    // The total solubility in water stands in for the form's own: a little higher, so this warns late, not early.
+    const sol = s.system.formSolubility;
+    if (sol && p.totalsM[i] > sol.maxM) {
+      const fractions = new Float64Array(s.lnCumK.length);
+      systemMoments(s.lnCumK, eq.lnH, { mean: 0, variance: 0 }, fractions);
+      const formM = fractions[sol.formIndex] * p.totalsM[i];
+      if (formM > sol.maxM) {
+        warnings.push(`${s.system.forms[sol.formIndex]} ${formM.toPrecision(3)} mol/L is above its solubility, about ${sol.maxM} mol/L at ${sol.temperatureC} °C: ${sol.consequence}`);
+      }
+    }
     const binds = s.system.bindsIons;
     const bound = binds ? p.ions.filter((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id)).map((ion) => ion.id) : [];
     if (binds && p.totalsM[i] > 0 && bound.length > 0) warnings.push(`${s.system.name} with ${bound.join(' and ')}: ${binds.reason}`);

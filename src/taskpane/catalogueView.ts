@@ -111,6 +111,7 @@ export function systemView(systemId: string, temperatureC: number, ionicStrength
   // What the model leaves out, as the cells' warnings will say it
   const limits = [
     ...(s.concentrationLimit ? [`Above ${s.concentrationLimit.maxTotalM} mol/L: ${s.concentrationLimit.reason}.`] : []),
+    ...(s.formSolubility ? [`${s.forms[s.formSolubility.formIndex]} above about ${s.formSolubility.maxM} mol/L (${s.formSolubility.temperatureC} °C): ${s.formSolubility.consequence}.`] : []),
     ...(s.bindsIons ? [`With ${s.bindsIons.ionIds.join(' or ')}: ${s.bindsIons.reason}.`] : []),
   ];
   return { id: s.id, name: s.name, steps, forms, reagents, rangeC: s.temperatureRangeC, notes: [s.notes ?? '', ...limits].filter((n) => n !== '').join(' ') };
