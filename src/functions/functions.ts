@@ -103,7 +103,7 @@ function SPECIES(reagents: any[][], amounts: any[][], units: any[][], volume?: a
 }
 
 /**
- * The mixture's model warnings (activity model out of range, polyborates, metal binding), or "none".
+ * The mixture's model warnings (activity model out of range, polyborates, a form above its solubility, metal binding), or "none".
  * @customfunction WARNINGS
  * @helpurl https://localhost:3000/README.md#warnings
  * @param reagents Reagents, one per row.
