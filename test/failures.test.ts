@@ -63,6 +63,13 @@ describe('every failure code, with the message a user reads', () => {
     expect(impl.molarMass('trisodium citrate dihydrate')).toBeCloseTo(294.10, 2);
   });
 
+  test('a final volume smaller than the volumes dispensed into it', () => {
+    const f = failureOf(() => impl.ph([['1 M HCl'], ['NaCl']], [[500], [1]], [['mL'], ['g']], 0.1));
+    expect(f.code).toBe('bad_argument');
+    expect(f.message).toBe('volume: value not usable. Received 0.1 L; expected at least the 0.5 L of stocks and liquids the rows add, since the final volume includes them.');
+    expect(impl.ph([['1 M HCl']], [[100]], 'mL', 0.1)).toBeCloseTo(impl.ph([['1 M HCl']], [[100]], 'mL'), 12); // equal is fine
+  });
+
   test('no_convergence has a message too', () => {
     const message = describeFailure({ code: 'no_convergence', argument: 'reagents', received: 'x', expected: 'y' });
     expect(message).toBe('reagents: the equilibrium did not converge. Received x; expected y.');

@@ -18,6 +18,16 @@ describe('turning batch-record rows into a solution', () => {
     expect(c.systemMoles.get('phosphate')).toBeCloseTo((1.685 * 0.85) / 97.995, 6);
   });
 
+  test('a liquid as sold, weighed: only its assay is the compound, and its volume counts toward the final volume', () => {
+    const c = buildContents([{ reagent: 'phosphoric acid 85%', amount: 1.685, unit: 'g', row: 1 }], 1);
+    expect(c.systemMoles.get('phosphate')).toBeCloseTo((1.685 * 0.85) / 97.995, 6); // the same 1 mL as above
+    expect(c.rows[0].volumeL).toBeCloseTo(0.001, 12);
+    const byMass = ph([['phosphoric acid 85%']], [[1.1529]], 'g', 1);
+    expect(byMass).toBeCloseTo(ph([['phosphoric acid 85%']], [[1.1529 / 1.685]], 'mL', 1), 10);
+    expect(byMass).toBeCloseTo(ph([['H3PO4']], [[1.1529 * 0.85]], 'g', 1), 10);
+    expect(() => ph([['hydrochloric acid 37%']], [[150]], 'g', 0.1)).toThrow(/at least the 0\.1267 L of stocks and liquids the rows add/);
+  });
+
   test('final concentrations need no volume; u, µ and the Greek mu are the same prefix; litres take any case', () => {
     const a = ph([['Tris'], ['Tris HCl']], [[25000], [25000]], 'µM');
     expect(ph([['Tris'], ['Tris HCl']], [[25000], [25000]], 'uM')).toBe(a);

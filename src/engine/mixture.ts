@@ -78,7 +78,12 @@ function rowMoles(spec: ReagentSpec, amount: number, unit: Unit, volumeL: number
   switch (unit.kind) {
     case 'mass':
       if (spec.stockM !== undefined) fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit), expected: 'a volume (L mL µL) or an amount (mol mmol µmol) for a stock solution' });
-      return { moles: value / spec.resolved.molarMassGPerMol, volumeL: 0 };
+      {
+        // a liquid as sold is weighed whole: only its assay fraction is the compound, and it brings its own volume
+        const liquid = spec.resolved.reagent.liquid;
+        if (liquid) return { moles: (value * liquid.massFraction) / spec.resolved.molarMassGPerMol, volumeL: value / (liquid.densityGPerML * 1000) };
+        return { moles: value / spec.resolved.molarMassGPerMol, volumeL: 0 };
+      }
     case 'amount':
       return { moles: value, volumeL: 0 };
     case 'concentration':
@@ -124,6 +129,12 @@ export function buildContents(rows: MixtureRow[], volumeL: number | undefined): 
     const { moles, volumeL: rowVolumeL } = rowMoles(p.spec, p.row.amount, p.unit, finalVolumeL, p.row);
     addReagent(contents, p.spec.resolved.reagent, moles);
     contents.rows.push({ row: p.row.row, text: p.row.reagent, reagent: p.spec.resolved.reagent, moles, volumeL: rowVolumeL });
+  }
+  // The final volume includes every volume dispensed into it: less than that is a typo, not a solution.
+  const dispensedL = contents.rows.reduce((sum, r) => sum + r.volumeL, 0);
+  if (volumeL !== undefined && dispensedL > volumeL * (1 + 1e-9)) {
+    fail({ code: 'bad_argument', argument: 'volume', received: `${volumeL} L`,
+      expected: `at least the ${Number(dispensedL.toPrecision(4))} L of stocks and liquids the rows add, since the final volume includes them` });
   }
   return contents;
 }
