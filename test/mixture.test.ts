@@ -1,4 +1,5 @@
 import { buildContents } from '../src/engine';
+import * as impl from '../src/functions/impl';
 import { ph, species } from '../src/functions/impl';
 
 function concentrationOf(table: (string | number)[][], name: string): number {
@@ -50,5 +51,28 @@ describe('turning batch-record rows into a solution', () => {
 
   test('a row of a 2-D range counts in row-major order, for messages', () => {
     expect(() => ph([['KH2PO4', 'nonsense']], [[1, 1]], 'g', 1)).toThrow(/reagents, row 2: unknown reagent/);
+  });
+});
+
+describe('one amount, every way of writing it, one pH', () => {
+  const BUFFER = [['KH2PO4'], ['Na2HPO4']];
+  const BUFFER_M = [[0.025], [0.025]];
+  const HCL_G_PER_MOL = 1.008 + 35.45; // CIAAW conventional values
+  const reference = ph([...BUFFER, ['HCl']], [...BUFFER_M, [0.01]], 'M', 1);
+  // 0.01 mol HCl into 1 L; density and assay of the 37 % acid: CRC Handbook (from memory), as in the catalogue
+  test.each([
+    ['HCl', 10, 'mmol'], ['HCl', 0.01 * HCL_G_PER_MOL, 'g'], ['HCl', 10, 'mM'],
+    ['1 M HCl', 10, 'mL'], ['1 M HCl', 0.01, 'L'], ['1 M HCl', 0.01, 'mol'], ['1 M HCl', 10, 'mM'], ['1000 mM HCl', 10000, 'µL'],
+    ['hydrochloric acid 37%', (0.01 * HCL_G_PER_MOL) / 0.37, 'g'], ['hydrochloric acid 37%', (0.01 * HCL_G_PER_MOL) / 0.37 / 1.184, 'mL'],
+    ['hydrochloric acid 37%', 0.01, 'mol'], ['hydrochloric acid 37%', 10, 'mM'],
+  ] as [string, number, string][])('%s, %d %s', (reagent, amount, unit) => {
+    expect(ph([...BUFFER, [reagent]], [...BUFFER_M, [amount]], [['M'], ['M'], [unit]], 1)).toBeCloseTo(reference, 10);
+  });
+
+  test('a liquid titrant: grams are millilitres times its density, moles are the assay', () => {
+    const args = [6.5, BUFFER, BUFFER_M, 'M', 1, 'hydrochloric acid 37%', 25, 'davies'] as const;
+    const mL = impl.titrant(...args, 'mL');
+    expect(impl.titrant(...args, 'g')).toBeCloseTo(mL * 1.184, 8);
+    expect(impl.titrant(...args, 'mmol')).toBeCloseTo((mL * 1.184 * 0.37 * 1000) / HCL_G_PER_MOL, 6);
   });
 });
