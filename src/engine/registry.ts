@@ -118,20 +118,26 @@ function trigrams(text: string): Set<string> {
   return out;
 }
 
+let trigramIndex: { reagent: Reagent; grams: Set<string> }[] | undefined;
+let trigramIndexGeneration = -1;
+function nameTrigrams(): { reagent: Reagent; grams: Set<string> }[] {
+  if (trigramIndex && trigramIndexGeneration === store.generation) return trigramIndex;
+  trigramIndex = allReagents().flatMap((reagent) => [reagent.name, ...reagent.aliases].map((name) => ({ reagent, grams: trigrams(normaliseName(name)) })));
+  trigramIndexGeneration = store.generation;
+  return trigramIndex;
+}
+
 /** Catalogue reagent names closest to a text (trigram Dice ≥ 0.45), best first: for an unknown-name message. */
 export function closestReagentNames(text: string, count = 3): string[] {
   const key = normaliseName(text);
   if (key.length < 3 || key.length > 100) return []; // no catalogue name is that long: not a misspelling
   const query = trigrams(key);
   const best = new Map<Reagent, number>();
-  for (const reagent of allReagents()) {
-    for (const name of [reagent.name, ...reagent.aliases]) {
-      const other = trigrams(normaliseName(name));
-      let shared = 0;
-      for (const t of query) if (other.has(t)) shared++;
-      const dice = (2 * shared) / (query.size + other.size);
-      if (dice > (best.get(reagent) ?? 0)) best.set(reagent, dice);
-    }
+  for (const { reagent, grams } of nameTrigrams()) {
+    let shared = 0;
+    for (const t of query) if (grams.has(t)) shared++;
+    const dice = (2 * shared) / (query.size + grams.size);
+    if (dice > (best.get(reagent) ?? 0)) best.set(reagent, dice);
   }
   return [...best.entries()].filter(([, dice]) => dice >= 0.45).sort((a, b) => b[1] - a[1]).slice(0, count).map(([r]) => r.name);
 }
