@@ -65,8 +65,17 @@ describe('one amount, every way of writing it, one pH', () => {
     ['1 M HCl', 10, 'mL'], ['1 M HCl', 0.01, 'L'], ['1 M HCl', 0.01, 'mol'], ['1 M HCl', 10, 'mM'], ['1000 mM HCl', 10000, 'µL'],
     ['hydrochloric acid 37%', (0.01 * HCL_G_PER_MOL) / 0.37, 'g'], ['hydrochloric acid 37%', (0.01 * HCL_G_PER_MOL) / 0.37 / 1.184, 'mL'],
     ['hydrochloric acid 37%', 0.01, 'mol'], ['hydrochloric acid 37%', 10, 'mM'],
+    [`${HCL_G_PER_MOL} g/L HCl`, 10, 'mL'], [`${HCL_G_PER_MOL / 10} mg/mL HCl`, 100, 'mL'], [`${HCL_G_PER_MOL / 100}% w/v HCl`, 100, 'mL'],
+    [`${HCL_G_PER_MOL * 1000} mg/L HCl`, 0.01, 'L'],
   ] as [string, number, string][])('%s, %d %s', (reagent, amount, unit) => {
     expect(ph([...BUFFER, [reagent]], [...BUFFER_M, [amount]], [['M'], ['M'], [unit]], 1)).toBeCloseTo(reference, 10);
+  });
+
+  test('a stock by mass takes the molar mass of the form written, hydrate included', () => {
+    expect(ph([['5 mg/mL Na2HPO4·7H2O']], [[20]], 'mL', 0.1)).toBeCloseTo(ph([['Na2HPO4·7H2O']], [[0.1]], 'g', 0.1), 12);
+    expect(ph([['5 mg/mL Na2HPO4']], [[20]], 'mL', 0.1)).toBeCloseTo(ph([['Na2HPO4']], [[0.1]], 'g', 0.1), 12);
+    expect(impl.titrant(7.4, BUFFER, BUFFER_M, 'M', 1, '4% w/v NaOH')).toBeCloseTo(impl.titrant(7.4, BUFFER, BUFFER_M, 'M', 1, `${40 / impl.molarMass('NaOH')} M NaOH`), 9);
+    expect(() => ph([['10% w/v hydrochloric acid 37%']], [[1]], 'mL', 0.1)).toThrow(/a solid or a formula before a mass concentration; hydrochloric acid 37% is a liquid as sold/);
   });
 
   test('a liquid titrant: grams are millilitres times its density, moles are the assay', () => {

@@ -26,7 +26,7 @@ export { fractionsAt, systemMoments } from './speciation';
 export { dpKaPerK, pKaAt } from './temperature';
 export { litresPerMole, molesToUnit, titrantForTarget, titrantUnit, unitToMoles, withTitrant } from './titrant';
 export type { TitrantResult } from './titrant';
-export { UNIT_LIST, findUnit, parseUnit, splitStock } from './units';
+export { UNIT_LIST, findUnit, parseUnit, splitMassStock, splitStock } from './units';
 export type { Unit, UnitKind } from './units';
 export { WATER_RANGE_C, checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL, waterPermittivity } from './water';
 export { applyCustomDefinitions, clearCustomDefinitions } from './customSystems';

@@ -2,7 +2,7 @@ import type { Reagent } from '../catalogue';
 import { fail, quote } from './failure';
 import { registryGeneration, resolveReagent } from './registry';
 import type { ResolvedReagent } from './registry';
-import { parseUnit, splitStock } from './units';
+import { parseUnit, splitMassStock, splitStock } from './units';
 import type { Unit } from './units';
 
 /** One batch-record row: a reagent, an amount and its unit (row is 1-based, for messages). */
@@ -57,6 +57,16 @@ export function parseReagentSpec(text: string, argument: string, row?: number): 
 }
 
 function parseReagentSpecUncached(text: string, argument: string, row?: number): ReagentSpec {
+  const massStock = splitMassStock(text);
+  if (massStock) {
+    if (!(massStock.gramsPerL > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
+    const resolved = resolveReagent(massStock.rest, argument, row);
+    if (resolved.reagent.liquid) {
+      fail({ code: 'bad_argument', argument, row, received: quote(text), expected: `a solid or a formula before a mass concentration; ${resolved.reagent.name} is a liquid as sold (write its volume, or a stock in M)` });
+    }
+    // the hydrate as written (or named) sets the molar mass: 50 g/L of Na2HPO4·7H2O is 0.187 mol/L
+    return { resolved, stockM: massStock.gramsPerL / resolved.molarMassGPerMol };
+  }
   const stock = splitStock(text);
   if (stock) {
     if (!(stock.concentrationM > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });

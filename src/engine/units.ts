@@ -53,6 +53,17 @@ export function parseUnit(value: unknown, argument: string, row?: number, allowe
   return unit;
 }
 
+// g per litre of stock for each mass-concentration unit a batch record writes before a reagent
+const MASS_STOCK_G_PER_L: Record<string, number> = { 'g/l': 1, 'mg/ml': 1, 'mg/l': 1e-3, 'µg/ml': 1e-3, 'ug/ml': 1e-3, 'μg/ml': 1e-3, '%w/v': 10 };
+
+/** A stock by mass written before a reagent: `50 g/L NaCl`, `10 mg/mL Tris`, `10% w/v NaOH` (g per 100 mL). */
+export function splitMassStock(text: string): { gramsPerL: number; rest: string } | undefined {
+  const match = /^\s*(\d+(?:\.\d+)?(?:[eE][-+]?\d+)?|\.\d+)\s*(g\/L|mg\/mL|mg\/L|[uµμ]g\/mL|%\s*w\/v)\s+(\S.*)$/i.exec(text);
+  if (!match) return undefined;
+  const factor = MASS_STOCK_G_PER_L[match[2].toLowerCase().replace(/\s+/g, '')];
+  return { gramsPerL: Number(match[1]) * factor, rest: match[3].trim() };
+}
+
 /** A stock written before a reagent: `1.2 M HCl`, `0.1 mol/L NaOH`, `500 mM Tris`. */
 export function splitStock(text: string): { concentrationM: number; rest: string } | undefined {
   const match = /^\s*(\d+(?:\.\d+)?(?:[eE][-+]?\d+)?|\.\d+)\s*(M|mM|[uµμ]M|mol\/L|mmol\/L|[uµμ]mol\/L)\s+(\S.*)$/.exec(text);
