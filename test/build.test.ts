@@ -14,6 +14,7 @@ const CONTRACT: Record<string, string[]> = {
   CURVE: ['reagents', 'amounts', 'units', 'volume', 'titrant', 'maxAmount', 'points', 'temperature', 'model', 'resultUnit'],
   FRACTIONS: ['system', 'pH', 'temperature', 'ionicStrength'],
   SPECIES: ['reagents', 'amounts', 'units', 'volume', 'temperature', 'model'],
+  CONSTANTS: ['reagents', 'amounts', 'units', 'volume', 'temperature', 'model'],
   WARNINGS: ['reagents', 'amounts', 'units', 'volume', 'temperature', 'model'],
   IONICSTRENGTH: ['reagents', 'amounts', 'units', 'volume', 'temperature', 'model'],
   CAPACITY: ['reagents', 'amounts', 'units', 'volume', 'temperature', 'model'],

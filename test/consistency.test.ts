@@ -40,3 +40,33 @@ describe('the cell functions agree with one another', () => {
     expect(impl.ionicStrength(R, A, U, 1)).toBeCloseTo(half, 14);
   });
 });
+
+describe('CONSTANTS: what the solve used, with sources', () => {
+  test.each([25, 37])('each pKa at T, and at the mixture\'s own ionic strength as PKA gives it, at %d °C', (t) => {
+    const table = impl.constants(R, A, U, 1, t) as (string | number)[][];
+    expect(table[0]).toEqual(['constant', 'step', 'at this temperature, I = 0', 'at this ionic strength', 'source']);
+    const I = impl.ionicStrength(R, A, U, 1, t);
+    const phosphate = table.filter((r) => r[0] === 'pKa phosphate');
+    expect(phosphate.map((r) => r[1])).toEqual([1, 2, 3]);
+    phosphate.forEach((r) => {
+      expect(r[2]).toBeCloseTo(impl.pka('phosphate', r[1], t), 12);
+      expect(r[3] as number).toBeCloseTo(impl.pka('phosphate', r[1], t, I), 9); // both Davies at the same I
+      expect(String(r[4])).toMatch(/Goldberg, Kishore & Lennen 2002/);
+    });
+    expect(row(table, 'pKw')[4]).toMatch(/IAPWS R11-07/);
+    expect(row(table, 'water density (kg/L)')[2] as number).toBeCloseTo(t === 25 ? 0.997047 : 0.99333, 4); // CRC Handbook (from memory)
+  });
+
+  test('a reviewer reproduces the pH from CONSTANTS and SPECIES by hand: pH = pKa′ + log10([HPO4²⁻]/[H2PO4⁻])', () => {
+    const species = impl.species(R, A, U, 1) as (string | number)[][];
+    const pKa2 = (impl.constants(R, A, U, 1) as (string | number)[][]).filter((r) => r[0] === 'pKa phosphate')[1][3] as number;
+    const handPH = pKa2 + Math.log10((row(species, 'HPO4²⁻')[2] as number) / (row(species, 'H2PO4⁻')[2] as number));
+    expect(handPH).toBeCloseTo(row(species, 'pH')[1] as number, 10);
+  });
+
+  test('under bates-guggenheim the apparent values follow that model, not Davies', () => {
+    const bg = (impl.constants(R, A, U, 1, 25, 'bates-guggenheim') as (string | number)[][]).filter((r) => r[0] === 'pKa phosphate')[1][3] as number;
+    const davies = (impl.constants(R, A, U, 1, 25, 'davies') as (string | number)[][]).filter((r) => r[0] === 'pKa phosphate')[1][3] as number;
+    expect(Math.abs(bg - davies)).toBeGreaterThan(0.005);
+  });
+});

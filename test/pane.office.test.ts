@@ -79,13 +79,16 @@ describe('writing blocks into the sheet (office-addin-mock)', () => {
     expect(re[8][1] as number).toBeGreaterThan(0);
   });
 
-  test('the audit block reserves its spill and computes the same table as SPECIES', () => {
+  test('the audit block reserves both spills and computes the same tables as SPECIES and CONSTANTS', () => {
     const table = impl.species([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, 25);
-    const block = speciesBlock(MIX, table.length, 0, 0);
+    const constants = impl.constants([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, 25);
+    const block = speciesBlock(MIX, table.length, constants.length, 0, 0);
     expect(block.cells[5]).toEqual(['=PROTIC.SPECIES(A2:A3,B2:B3,C2:C3,B4,B5)', '', '', '', '']);
-    expect(block.cells).toHaveLength(5 + table.length);
+    expect(block.cells[5 + table.length]).toEqual(['=PROTIC.CONSTANTS(A2:A3,B2:B3,C2:C3,B4,B5)', '', '', '', '']);
+    expect(block.cells).toHaveLength(5 + table.length + constants.length);
     const v = evaluateSheet(block.cells.map((r) => r.map((c) => (c === '' ? null : c))));
     expect(v.slice(5, 5 + table.length).map((r) => r.slice(0, 5))).toEqual(table);
+    expect(v.slice(5 + table.length).map((r) => r.slice(0, 5))).toEqual(constants);
   });
 
   test('the temperature what-if table: an editable temperature column, pH and warnings per row', () => {

@@ -60,6 +60,15 @@ describe('README examples evaluate to what the README prints', () => {
     expect(row('warning')).toBe('none');
   });
 
+  test('CONSTANTS: the phosphate step 2 row', () => {
+    const formula = '=PROTIC.CONSTANTS(A1:A2,B1:B2,C1:C2,1)';
+    expect(README).toContain(`\`${formula}\` → … pKa phosphate, 2, 7.198, 6.8755, Goldberg, Kishore & Lennen 2002 …`);
+    const step2 = evaluate(formula).find((r) => r[0] === 'pKa phosphate' && r[1] === 2)!;
+    expect(step2[2]).toBe(7.198);
+    expect(Math.abs((step2[3] as number) - 6.8755)).toBeLessThanOrEqual(halfUlp('6.8755'));
+    expect(String(step2[4])).toMatch(/^Goldberg, Kishore & Lennen 2002/);
+  });
+
   test.each([
     ['=PROTIC.WARNINGS({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;700},{"g";"g";"mM"},1)'],
     ['=PROTIC.VERSION()'],

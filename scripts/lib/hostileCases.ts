@@ -10,6 +10,7 @@ export const VALID: Record<string, unknown[]> = {
   fractions: ['phosphate', 7, 25, 0.1],
   species: [R, A, 'g', 1, 25, 'davies'],
   warnings: [R, A, 'g', 1, 25, 'davies'],
+  constants: [R, A, 'g', 1, 25, 'davies'],
   ionicStrength: [R, A, 'g', 1, 25, 'davies'],
   capacity: [R, A, 'g', 1, 25, 'bates-guggenheim'],
   pka: ['phosphate', 2, 25, 0.1],

@@ -22,6 +22,7 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 2] },
   { name: 'FRACTIONS', fn: impl.fractions as Impl, arity: [2, 4], fallback: [1, 7] },
   { name: 'SPECIES', fn: impl.species as Impl, arity: [3, 6], fallback: [40, 5] },
+  { name: 'CONSTANTS', fn: impl.constants as Impl, arity: [3, 6], fallback: [30, 5] },
   { name: 'WARNINGS', fn: impl.warnings as Impl, arity: [3, 6] },
   { name: 'IONICSTRENGTH', fn: impl.ionicStrength as Impl, arity: [3, 6] },
   { name: 'CAPACITY', fn: impl.capacity as Impl, arity: [3, 6] },
@@ -31,7 +32,7 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'VERSION', fn: impl.version as Impl, arity: [0, 0] },
 ];
 
-const SPILLS = new Set(['CURVE', 'FRACTIONS', 'SPECIES', 'RECIPE']);
+const SPILLS = new Set(['CURVE', 'FRACTIONS', 'SPECIES', 'CONSTANTS', 'RECIPE']);
 const BY_NAME = new Map(PROTIC_FUNCTIONS.map((f) => [f.name, f] as [string, ProticFunction]));
 
 /**

@@ -28,7 +28,7 @@ export { litresPerMole, molesToUnit, titrantForTarget, titrantUnit, unitToMoles,
 export type { TitrantResult } from './titrant';
 export { UNIT_LIST, findUnit, parseUnit, splitMassStock, splitStock } from './units';
 export type { Unit, UnitKind } from './units';
-export { WATER_RANGE_C, checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL, waterPermittivity } from './water';
+export { WATER_RANGE_C, WATER_SOURCES, checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL, waterPermittivity } from './water';
 export { applyCustomDefinitions, clearCustomDefinitions } from './customSystems';
 export type { CustomFormDefinition, CustomSystemDefinition } from './customSystems';
 export { apparentPKas, fractionsAtPH } from './apparent';

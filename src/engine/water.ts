@@ -1,6 +1,13 @@
 import { fail } from './failure';
 
 export const KELVIN_OFFSET = 273.15;
+/** Where each water property comes from, for audit output. */
+export const WATER_SOURCES = {
+  density: 'Kell 1975, J. Chem. Eng. Data 20, 97',
+  pKw: 'IAPWS R11-07 (Bandura & Lvov 2006, J. Phys. Chem. Ref. Data 35, 15), at 0.1 MPa',
+  debyeHuckelA: 'from the permittivity of Malmberg & Maryott 1956 (J. Res. NBS 56, 1), the Kell density and CODATA 2018 constants',
+} as const;
+
 /** Range over which the water properties below all hold (Kell density 0–150 °C, Malmberg–Maryott permittivity 0–100 °C). */
 export const WATER_RANGE_C: [number, number] = [0, 100];
 

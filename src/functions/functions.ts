@@ -103,6 +103,22 @@ function SPECIES(reagents: any[][], amounts: any[][], units: any[][], volume?: a
 }
 
 /**
+ * Every constant the mixture's solve used, with its source: each pKa at the temperature and at the mixture's ionic strength, pKw, A, water density.
+ * @customfunction CONSTANTS
+ * @helpurl https://localhost:3000/README.md#constants
+ * @param reagents Reagents, one per row.
+ * @param amounts Amount of each reagent.
+ * @param units Unit of each amount: one cell or one per row.
+ * @param [volume] Final volume of the solution, L.
+ * @param [temperature] Temperature, °C (default 25).
+ * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @returns A spill with a header row.
+ */
+function CONSTANTS(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, model?: any): any[][] {
+  return run(() => impl.constants(reagents, amounts, units, volume, temperature, model));
+}
+
+/**
  * The mixture's model warnings (activity model out of range, polyborates, a form above its solubility, metal binding), or "none".
  * @customfunction WARNINGS
  * @helpurl https://localhost:3000/README.md#warnings
@@ -207,4 +223,4 @@ function VERSION(): string {
 }
 
 // The metadata plugin's loader appends CustomFunctions.associate for each @customfunction above.
-export const EXCEL_FUNCTIONS = { PH, TITRANT, CURVE, FRACTIONS, SPECIES, WARNINGS, IONICSTRENGTH, CAPACITY, PKA, RECIPE, MOLARMASS, VERSION };
+export const EXCEL_FUNCTIONS = { PH, TITRANT, CURVE, FRACTIONS, SPECIES, CONSTANTS, WARNINGS, IONICSTRENGTH, CAPACITY, PKA, RECIPE, MOLARMASS, VERSION };

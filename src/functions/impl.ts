@@ -1,7 +1,7 @@
 import { ADDIN_VERSION, CATALOGUE_VERSION } from '../catalogue';
 import {
   apparentPKas, bufferCapacity, buildContents, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
-  looksLikeFormula, modelWarning, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
+  WATER_SOURCES, debyeHuckelA, fractionsAt, looksLikeFormula, modelWarning, pKw, waterDensityKgPerL, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
   pKaAt, prepareProblem, quote, reagentByName, recipeForTarget, registryGeneration, resolveReagent, resolveSystem, speciesRows, solve,
   titrantForTarget, titrantUnit, unitToMoles, withTitrant,
 } from '../engine';
@@ -86,6 +86,33 @@ export function capacity(reagents: Cell, amounts: Cell, units: Cell, volume?: Ce
 export function warnings(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): string {
   const warning = modelWarning(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model)));
   return warning === '' ? 'none' : warning;
+}
+
+export const CONSTANTS_HEADER = ['constant', 'step', 'at this temperature, I = 0', 'at this ionic strength', 'source'];
+
+/**
+ * Every constant the mixture's solve used, with its source: each pKa at the temperature, and the apparent value
+ * pH − log10([base]/[acid]) at the mixture's own ionic strength under its model; then pKw, A and the water density.
+ */
+export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): CellScalar[][] {
+  const m = readMixture(reagents, amounts, units, volume, temperature, model);
+  const eq = equilibriumOf(m);
+  const p = eq.problem;
+  const table: CellScalar[][] = [CONSTANTS_HEADER];
+  p.systems.forEach((s) => {
+    const alpha = fractionsAt(s.lnCumK, eq.lnH);
+    s.system.steps.forEach((step, k) => {
+      // where a form is too rare to carry a ratio (below 1e-300), the apparent value is not shown
+      const ratio = alpha[k + 1] / alpha[k];
+      const apparent = Number.isFinite(ratio) && ratio > 0 ? eq.pH - Math.log10(ratio) : '';
+      table.push([`pKa ${s.system.name}`, k + 1, finite(pKaAt(step, m.temperatureC), 'pKa'), apparent, step.source]);
+    });
+  });
+  table.push(['pKw', '', finite(pKw(m.temperatureC), 'pKw'), '', WATER_SOURCES.pKw]);
+  table.push(['Debye–Hückel A (kg/mol)^½', '', debyeHuckelA(m.temperatureC), '', WATER_SOURCES.debyeHuckelA]);
+  table.push(['water density (kg/L)', '', waterDensityKgPerL(m.temperatureC), '', WATER_SOURCES.density]);
+  table.push(['model', `${m.model}, ${m.temperatureC} °C, ionic strength ${eq.ionicStrengthM.toPrecision(4)} mol/L`, '', '', '']);
+  return table;
 }
 
 export const SPECIES_HEADER = ['species', 'charge', 'concentration (mol/L)', 'activity coefficient', 'activity'];

@@ -72,11 +72,13 @@ export function titrantBlock(m: MixtureInput, titrant: string, targetPH: number,
   return { cells: pad(rows) };
 }
 
-/** The audit view: the mixture, then SPECIES with blank cells reserved for its spill (rows × 5). */
-export function speciesBlock(m: MixtureInput, spillRows: number, top: number, left: number): Block {
+/** The audit view: the mixture, then SPECIES and CONSTANTS, with blank cells reserved for their spills (rows × 5). */
+export function speciesBlock(m: MixtureInput, speciesRows: number, constantsRows: number, top: number, left: number): Block {
   const { rows, refs } = mixtureRows(m, top, left);
-  rows.push([`=PROTIC.SPECIES(${mixtureArgs(refs)})`, '', '', '', '']);
-  for (let i = 1; i < spillRows; i++) rows.push(['', '', '', '', '']);
+  for (const [fn, spillRows] of [['SPECIES', speciesRows], ['CONSTANTS', constantsRows]] as const) {
+    rows.push([`=PROTIC.${fn}(${mixtureArgs(refs)})`, '', '', '', '']);
+    for (let i = 1; i < spillRows; i++) rows.push(['', '', '', '', '']);
+  }
   return { cells: pad(rows) };
 }
 

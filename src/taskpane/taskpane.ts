@@ -177,8 +177,9 @@ function blockBuilder(kind: string): (top: number, left: number) => Block {
     }
     case 'species': {
       const [reagents, amounts, units, volumeL] = mixtureArgs();
-      const spillRows = impl.species(reagents, amounts, units, volumeL, temperatureC).length;
-      return (t, l) => speciesBlock(m, spillRows, t, l);
+      const speciesRows = impl.species(reagents, amounts, units, volumeL, temperatureC).length;
+      const constantsRows = impl.constants(reagents, amounts, units, volumeL, temperatureC).length;
+      return (t, l) => speciesBlock(m, speciesRows, constantsRows, t, l);
     }
     case 'temperatures': return (t, l) => temperatureTableBlock(m, WHAT_IF_TEMPERATURES_C, t, l);
     default: return (t, l) => phBlock(m, t, l);
@@ -233,7 +234,7 @@ function build(): void {
   const kind = el('select', {}, [
     el('option', { value: 'ph' }, ['pH of the mixture']), el('option', { value: 'titrant' }, ['Titrant for the target pH']),
     el('option', { value: 'recipe' }, ['Recipe: grams of two forms']), el('option', { value: 'fractions' }, ['Fractions table across pH']),
-    el('option', { value: 'species' }, ['Audit: every species (SPECIES)']), el('option', { value: 'temperatures' }, ['What-if: pH across temperatures']),
+    el('option', { value: 'species' }, ['Audit: every species and constant']), el('option', { value: 'temperatures' }, ['What-if: pH across temperatures']),
   ]);
   const unitSelect = (value: string): HTMLSelectElement => {
     const s = el('select', {}, ['g', 'mg', 'mol', 'mmol', 'M', 'mM', 'mL', 'L'].map((u) => el('option', { value: u }, [u])));
