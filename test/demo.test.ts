@@ -2,6 +2,7 @@ import { readFileSync, readdirSync } from 'fs';
 import { renderWorkbook } from '../scripts/demo';
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
 import { parseCsv, typedCell } from '../scripts/lib/csv';
+import { applyCustomDefinitions, clearCustomDefinitions } from '../src/engine';
 import { species } from '../src/functions/impl';
 
 describe('the bundled examples', () => {
@@ -45,6 +46,18 @@ describe('model validity', () => {
     [['potassium hydrogen phthalate'], [0.05], /^none$/],
   ])('a form above its solubility: %s at %s mol/L', (reagents, molar, pattern) => {
     expect(warningOf(reagents as string[], molar as number[])).toMatch(pattern);
+  });
+  test('a step without ΔrH° used away from 25 °C says its pKa was kept', () => {
+    const forms = [{ name: 'kelvic acid', formula: 'C5H8O2', protonsLost: 0 }, { name: 'sodium kelvate', formula: 'C5H7NaO2', protonsLost: 1 }];
+    expect(applyCustomDefinitions({ systems: [{ name: 'Kelvate', pKa: [6.0], charge: 0, forms }, { name: 'Warmate', pKa: [6.0], charge: 0, dH: [20], forms: forms.map((f) => ({ ...f, name: f.name.replace('kelv', 'warm') })) }] })).toEqual([]);
+    try {
+      const at = (reagents: string[], t: number): string => String((species(reagents.map((x) => [x]), [[0.01], [0.01]], 'M', null, t, 'davies').find((r) => r[0] === 'warning') as string[])[1]);
+      expect(at(['kelvic acid', 'sodium kelvate'], 37)).toMatch(/^Kelvate step 1 has no ΔrH°: its 25 °C pKa \(6\) is used unchanged at 37 °C$/);
+      expect(at(['kelvic acid', 'sodium kelvate'], 25)).toBe('none');
+      expect(at(['warmic acid', 'sodium warmate'], 37)).toBe('none');
+    } finally {
+      clearCustomDefinitions();
+    }
   });
   test('warnings join: a binding warning and an ionic-strength warning together', () => {
     expect(warningOf(['disodium EDTA dihydrate', 'MgCl2', 'NaCl'], [0.001, 0.002, 0.8])).toMatch(/range \(about 0\.5 mol\/kg\).*; EDTA with Mg2\+/);

@@ -57,7 +57,8 @@ export function bufferCapacity(eq: Equilibrium): number {
 
 /**
  * Warnings, joined by "; ", when the ionic strength is above the activity model's range, a system's total
- * is above the concentration its catalogue model holds for, or a system meets a metal ion it binds; '' when none.
+ * is above the concentration its catalogue model holds for, a form is above its solubility, a step without ΔrH° is
+ * used away from 25 °C, or a system meets a metal ion it binds; '' when none.
  */
 export function modelWarning(eq: Equilibrium): string {
   const p = eq.problem;
@@ -84,6 +85,14 @@ export function modelWarning(eq: Equilibrium): string {
       if (formM > sol.maxM) {
         warnings.push(`${s.system.forms[sol.formIndex]} ${formM.toPrecision(3)} mol/L is above its solubility, about ${sol.maxM} mol/L at ${sol.temperatureC} °C: ${sol.consequence}`);
       }
+    }
+    // a step with no ΔrH° keeps its 25 °C pKa at every temperature: say so where that step matters
+    if (Math.abs(p.temperatureC - 25) > 2) {
+      s.system.steps.forEach((step, k) => {
+        if (step.dHkJPerMol === undefined && Math.abs(step.pKa - eq.pH) < 2) {
+          warnings.push(`${s.system.name} step ${k + 1} has no ΔrH°: its 25 °C pKa (${step.pKa}) is used unchanged at ${p.temperatureC} °C`);
+        }
+      });
     }
     const binds = s.system.bindsIons;
     const bound = binds ? p.ions.filter((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id)).map((ion) => ion.id) : [];
