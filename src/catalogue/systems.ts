@@ -11,6 +11,8 @@ function step(pKa: number, dHkJPerMol?: number, dCpJPerKMol?: number, source: st
 
 const HPA_1945 = 'pKa: Goldberg, Kishore & Lennen 2002; ΔrH°, ΔrCp°: Hamer, Pinching & Acree 1945, J. Res. NBS 35, 539 (both from memory)';
 
+const PB_1948 = 'pKa: Goldberg, Kishore & Lennen 2002; ΔrH°, ΔrCp°: Pinching & Bates 1948, J. Res. NBS 40, 405 (both from memory)';
+
 /** Data from 25 °C with ΔrCp° extrapolate reliably over about this range (common practice). */
 const RANGE_GKL: [number, number] = [0, 60];
 
@@ -85,7 +87,9 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     id: 'oxalate', name: 'oxalate', aliases: ['oxalic acid'],
     chargeMostProtonated: 0, formulaMostProtonated: 'C2H2O4',
     forms: ['H2C2O4', 'HC2O4⁻', 'C2O4²⁻'],
-    steps: [step(1.27, -3.9, -231), step(4.266, 7.3, -231)],
+    // ΔrH° and ΔrCp° of step 2 from the slope and curvature at 298.15 K of the Harned-cell fit
+    // pK2 = 1423.8/T − 6.5007 + 0.020095·T; a recalled +7.3 kJ/mol had the sign wrong.
+    steps: [step(1.27, -3.9, -231), step(4.266, -6.94, -229, PB_1948)],
     temperatureRangeC: RANGE_GKL,
     bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'calcium oxalate is sparingly soluble and may precipitate; oxalate complexes are not modelled', source: 'common practice' },
   },
