@@ -29,9 +29,9 @@ describe('model validity', () => {
   const warningOf = (reagents: string[], molar: number[]): string =>
     String((species(reagents.map((x) => [x]), molar.map((x) => [x]), 'M', null, 25, 'davies').find((r) => r[0] === 'warning') as string[])[1]);
   test.each([
-    [['disodium EDTA dihydrate', 'MgCl2'], [0.001, 0.002], /EDTA with Mg2\+: EDTA binds Ca²⁺ and Mg²⁺ strongly, releasing protons, which the model leaves out: the pH reads high/],
-    [['citric acid', 'trisodium citrate dihydrate', 'calcium chloride dihydrate'], [0.01, 0.01, 0.001], /citrate with Ca2\+: citrate binds/],
-    [['KH2PO4', 'Na2HPO4', 'CaCl2', 'MgCl2'], [0.01, 0.01, 0.0009, 0.0005], /phosphate with Ca2\+ and Mg2\+: CaHPO4 and MgHPO4 ion pairs/],
+    [['disodium EDTA dihydrate', 'MgCl2'], [0.001, 0.002], /EDTA with Mg²⁺: EDTA binds Ca²⁺ and Mg²⁺ strongly, releasing protons, which the model leaves out: the pH reads high/],
+    [['citric acid', 'trisodium citrate dihydrate', 'calcium chloride dihydrate'], [0.01, 0.01, 0.001], /citrate with Ca²⁺: citrate binds/],
+    [['KH2PO4', 'Na2HPO4', 'CaCl2', 'MgCl2'], [0.01, 0.01, 0.0009, 0.0005], /phosphate with Ca²⁺ and Mg²⁺: CaHPO4 and MgHPO4 ion pairs/],
   ])('SPECIES warns when %s meet a metal ion the model does not bind', (reagents, molar, pattern) => {
     expect(warningOf(reagents, molar)).toMatch(pattern);
   });
@@ -60,7 +60,7 @@ describe('model validity', () => {
     }
   });
   test('warnings join: a binding warning and an ionic-strength warning together', () => {
-    expect(warningOf(['disodium EDTA dihydrate', 'MgCl2', 'NaCl'], [0.001, 0.002, 0.8])).toMatch(/range \(about 0\.5 mol\/kg\).*; EDTA with Mg2\+/);
+    expect(warningOf(['disodium EDTA dihydrate', 'MgCl2', 'NaCl'], [0.001, 0.002, 0.8])).toMatch(/range \(about 0\.5 mol\/kg\).*; EDTA with Mg²⁺/);
   });
   test('no binding warning without the metal ion', () => {
     expect(warningOf(['disodium EDTA dihydrate', 'NaCl', 'KCl'], [0.001, 0.15, 0.003])).toBe('none');

@@ -197,7 +197,7 @@ describe('catalogue view', () => {
 
   test('a system view states what its model leaves out, in the words the cell warnings use', () => {
     expect(systemView('borate', 25, 0).notes).toBe('Monomeric borate only. Above 0.025 mol/L: polyborate ions form, which this monomeric model leaves out; the further below pH 9, the higher the computed pH reads. B(OH)3 above about 0.92 mol/L (25 °C): boric acid may crystallise out.');
-    expect(systemView('edta', 25, 0).notes).toMatch(/^H4Y above about 0\.0017 mol\/L \(25 °C\): EDTA free acid may precipitate.*With Ca2\+ or Mg2\+: EDTA binds Ca²⁺ and Mg²⁺ strongly/);
+    expect(systemView('edta', 25, 0).notes).toMatch(/^H4Y above about 0\.0017 mol\/L \(25 °C\): EDTA free acid may precipitate.*With Ca²⁺ or Mg²⁺: EDTA binds Ca²⁺ and Mg²⁺ strongly/);
     expect(systemView('hepes', 25, 0).notes).toBe('Only the step in the working range is modelled; a carboxyl or sulfonate step below pH 3 is not.');
   });
 

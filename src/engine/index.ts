@@ -18,7 +18,7 @@ export {
   resolveReagent, resolveSystem, setCustomDefinitions, systemFor,
 } from './registry';
 export type { ResolvedReagent } from './registry';
-export { bufferCapacity, modelWarning, speciesRows } from './results';
+export { bufferCapacity, ionLabel, modelWarning, speciesRows } from './results';
 export type { SpeciesRow } from './results';
 export { lnGammaZ2For, lnHFromPH, pHFromLnH, solve, solveFixedActivity, startingLnH } from './solver';
 export type { Equilibrium } from './solver';

@@ -24,13 +24,18 @@ function row(problem: Problem, species: string, charge: number, concentrationM: 
 export function speciesRows(eq: Equilibrium): SpeciesRow[] {
   const p = eq.problem;
   const rows: SpeciesRow[] = [row(p, 'H⁺', 1, Math.exp(eq.lnH)), row(p, 'OH⁻', -1, Math.exp(p.lnKwc - eq.lnH))];
-  for (const ion of p.ions) rows.push(row(p, ion.id.replace(/(\d*)\+$/, (_, n) => `${supDigits(n)}⁺`).replace(/(\d*)-$/, (_, n) => `${supDigits(n)}⁻`), ion.charge, ion.concentrationM));
+  for (const ion of p.ions) rows.push(row(p, ionLabel(ion.id), ion.charge, ion.concentrationM));
   p.systems.forEach((s, i) => {
     const fractions = new Float64Array(s.lnCumK.length);
     systemMoments(s.lnCumK, eq.lnH, { mean: 0, variance: 0 }, fractions);
     fractions.forEach((alpha, j) => rows.push(row(p, s.system.forms[j] ?? `${s.system.name} form ${j}`, s.z0 - j, alpha * p.totalsM[i], s.system.id)));
   });
   return rows;
+}
+
+/** An ion id as it is printed: Mg2+ → Mg²⁺, Cl- → Cl⁻. */
+export function ionLabel(id: string): string {
+  return id.replace(/(\d*)\+$/, (_, n) => `${supDigits(n)}⁺`).replace(/(\d*)-$/, (_, n) => `${supDigits(n)}⁻`);
 }
 
 function supDigits(digits: string): string {
@@ -95,7 +100,7 @@ export function modelWarning(eq: Equilibrium): string {
       });
     }
     const binds = s.system.bindsIons;
-    const bound = binds ? p.ions.filter((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id)).map((ion) => ion.id) : [];
+    const bound = binds ? p.ions.filter((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id)).map((ion) => ionLabel(ion.id)) : [];
     if (binds && p.totalsM[i] > 0 && bound.length > 0) warnings.push(`${s.system.name} with ${bound.join(' and ')}: ${binds.reason}`);
   });
   return warnings.join('; ');

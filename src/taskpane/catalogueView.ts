@@ -1,7 +1,7 @@
 import { strongIonById } from '../catalogue';
 import type { AcidSystem } from '../catalogue';
 import {
-  allReagents, allSystems, apparentPKas, compositionMassGPerMol, dpKaPerK, molarMassOfReagent, normaliseName, parseFormula,
+  allReagents, allSystems, apparentPKas, compositionMassGPerMol, dpKaPerK, ionLabel, molarMassOfReagent, normaliseName, parseFormula,
   pKaAt, systemFor, withoutHydrogens,
 } from '../engine';
 
@@ -112,7 +112,7 @@ export function systemView(systemId: string, temperatureC: number, ionicStrength
   const limits = [
     ...(s.concentrationLimit ? [`Above ${s.concentrationLimit.maxTotalM} mol/L: ${s.concentrationLimit.reason}.`] : []),
     ...(s.formSolubility ? [`${s.forms[s.formSolubility.formIndex]} above about ${s.formSolubility.maxM} mol/L (${s.formSolubility.temperatureC} °C): ${s.formSolubility.consequence}.`] : []),
-    ...(s.bindsIons ? [`With ${s.bindsIons.ionIds.join(' or ')}: ${s.bindsIons.reason}.`] : []),
+    ...(s.bindsIons ? [`With ${s.bindsIons.ionIds.map(ionLabel).join(' or ')}: ${s.bindsIons.reason}.`] : []),
   ];
   return { id: s.id, name: s.name, steps, forms, reagents, rangeC: s.temperatureRangeC, notes: [s.notes ?? '', ...limits].filter((n) => n !== '').join(' ') };
 }
