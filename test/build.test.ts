@@ -33,6 +33,8 @@ describe('the built add-in', () => {
     expect(f).toBeDefined();
     expect(f!.description!.length).toBeGreaterThan(10);
     expect(f!.helpUrl).toMatch(/README\.md#/);
+    // the help link lands on the function's own entry in the README
+    expect(readFileSync('README.md', 'utf8')).toContain(`<a id="${f!.helpUrl!.split('#')[1]}"></a>**${name}(`);
     expect(f!.parameters.map((p) => p.name)).toEqual(params);
     for (const p of f!.parameters) expect((p.description ?? '').length).toBeGreaterThan(3);
   });
