@@ -1,6 +1,6 @@
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
 import { loadSystemsFile } from '../scripts/lib/systemsFile';
-import { clearCustomDefinitions } from '../src/engine';
+import { applyCustomDefinitions, clearCustomDefinitions } from '../src/engine';
 import type { SheetValue } from '../scripts/lib/sheetEngine';
 import { runSheet } from '../scripts/sheet';
 import { ph } from '../src/functions/impl';
@@ -132,6 +132,16 @@ describe('the runner with --systems', () => {
     const lines = out.trim().split('\n');
     expect(Number(lines[2])).toBeCloseTo(5.5, 2);
     expect(Number(lines[3])).toBe(5.5);
+  });
+  test('a custom copy of acetate with its ΔrH° and ΔrCp° gives the catalogue\'s pH at 37 °C', () => {
+    const acetate = { name: 'Acetoid', pKa: [4.756], charge: 0, dH: [-0.41], dCp: [-142],
+      forms: [{ name: 'acetoid acid', formula: 'C2H4O2', protonsLost: 0 }, { name: 'sodium acetoidate', formula: 'C2H3NaO2', protonsLost: 1 }] };
+    expect(applyCustomDefinitions({ systems: [acetate] })).toEqual([]);
+    for (const t of [4, 25, 37]) {
+      expect(ph([['acetoid acid'], ['sodium acetoidate']], [[0.05], [0.05]], 'M', null, t)).toBeCloseTo(ph([['acetic acid'], ['sodium acetate']], [[0.05], [0.05]], 'M', null, t), 12);
+    }
+    expect(applyCustomDefinitions({ systems: [{ ...acetate, dH: undefined }] })[0]).toMatch(/custom system 1 dCp: value not usable\. Received ΔrCp° without ΔrH°/);
+    expect(applyCustomDefinitions({ systems: [{ ...acetate, dCp: [5000] }] })[0]).toMatch(/custom system 1 dCp/);
   });
   test('a bad file is refused with its problems', () => {
     const path = require('path').join(require('os').tmpdir(), 'protic-bad-systems.json');

@@ -6,11 +6,11 @@ import { normaliseName, setCustomDefinitions } from './registry';
 
 // User-defined acid systems, carried in the workbook (document settings) or a --systems file.
 // Our own JSON shape:
-// { "systems": [ { "name": "...", "pKa": [7.1], "charge": 0, "dH": [20],
+// { "systems": [ { "name": "...", "pKa": [7.1], "charge": 0, "dH": [20], "dCp": [-50],
 //     "forms": [ { "name": "...", "formula": "...", "protonsLost": 0 } ] } ] }
 
 export interface CustomFormDefinition { name: string; formula: string; protonsLost: number }
-export interface CustomSystemDefinition { name: string; pKa: number[]; charge: number; dH?: number[]; forms?: CustomFormDefinition[] }
+export interface CustomSystemDefinition { name: string; pKa: number[]; charge: number; dH?: number[]; dCp?: number[]; forms?: CustomFormDefinition[] }
 
 /** Names: letters, digits, spaces and a little punctuation; never markup. */
 const SAFE_NAME = /^[\p{L}\p{N} ()+,.'\-]{1,60}$/u;
@@ -51,6 +51,8 @@ function buildSystem(def: Record<string, unknown>, index: number, taken: Set<str
     fail({ code: 'bad_argument', argument: `${where} charge`, received: quote(charge), expected: 'the whole-number charge of the most protonated form, −6 to 6' });
   }
   const dH = def.dH === undefined ? undefined : checkNumberList(def.dH, `${where} dH`, pKa.length, -200, 200, 'kJ/mol');
+  const dCp = def.dCp === undefined ? undefined : checkNumberList(def.dCp, `${where} dCp`, pKa.length, -1000, 1000, 'J/(K·mol)');
+  if (dCp && !dH) fail({ code: 'bad_argument', argument: `${where} dCp`, received: 'ΔrCp° without ΔrH°', expected: 'dH as well: ΔrCp° only bends a slope that ΔrH° sets' });
   const id = `custom:${key}`;
   const formsIn = def.forms === undefined ? [] : def.forms;
   if (!Array.isArray(formsIn) || formsIn.length > pKa.length + 1) fail({ code: 'bad_argument', argument: `${where} forms`, received: quote(Array.isArray(formsIn) ? `${formsIn.length} forms` : formsIn), expected: `at most ${pKa.length + 1} forms` });
@@ -77,7 +79,7 @@ function buildSystem(def: Record<string, unknown>, index: number, taken: Set<str
     chargeMostProtonated: charge,
     formulaMostProtonated: '',
     forms: pKa.concat([0]).map((_, j) => `${name} (${charge - j > 0 ? '+' : ''}${charge - j})`),
-    steps: pKa.map((v, i) => ({ pKa: v, dHkJPerMol: dH?.[i], source: 'user-defined in this workbook' })),
+    steps: pKa.map((v, i) => ({ pKa: v, dHkJPerMol: dH?.[i], dCpJPerKMol: dCp?.[i], source: 'user-defined in this workbook' })),
     temperatureRangeC: [0, 60],
     notes: 'User-defined; not part of the reviewed catalogue.',
   };
