@@ -33,6 +33,13 @@ describe('the cell functions agree with one another', () => {
     expect(impl.pka('phosphate', 2, t, row(table, 'ionic strength (mol/L)')[1])).toBeCloseTo(apparent, 12);
   });
 
+  test.each([[7.2, 25], [6.8, 4], [7.4, 37]])('RECIPE\'s base form equals the solid NaOH TITRANT needs from the acid form alone (pH %d, %d °C)', (target, t) => {
+    const recipe = impl.recipe('sodium dihydrogen phosphate', 'disodium hydrogen phosphate', target, 0.1, 1, t) as (string | number)[][];
+    const baseMol = (recipe[1][1] as number) / impl.molarMass('disodium hydrogen phosphate');
+    const naohMol = impl.titrant(target, [['sodium dihydrogen phosphate']], [[0.1]], 'mol', 1, 'NaOH', t, 'davies', 'mol');
+    expect(Math.abs(naohMol / baseMol - 1)).toBeLessThan(1e-9); // same Na⁺ and phosphate in the same litre
+  });
+
   test('IONICSTRENGTH is ½ Σ z² c over the SPECIES rows', () => {
     const table = impl.species(R, A, U, 1) as (string | number)[][];
     const half = table.slice(1).filter((r) => typeof r[1] === 'number' && typeof r[2] === 'number')
