@@ -1,7 +1,7 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import fc from 'fast-check';
 import { ACID_SYSTEMS } from '../src/catalogue';
-import { addReagent, debyeHuckelA, pKaAt, pKw, prepareProblem, solve, waterDensityKgPerL } from '../src/engine';
+import { debyeHuckelA, pKaAt, pKw, prepareProblem, solve, waterDensityKgPerL } from '../src/engine';
 import type { Contents } from '../src/engine';
 
 // Independent method: the ideal charge balance multiplied out into a polynomial in [H⁺],
@@ -137,7 +137,6 @@ describe('solver against an independent polynomial root (ml-matrix eigenvalues),
     // eslint-disable-next-line no-console
     console.log(`worst relative deviation from the polynomial root: ${worst.toExponential(2)}`);
   });
-  void addReagent;
 });
 
 // The same polynomial at fixed conditional constants, inside a plain fixed-point loop on the ionic strength:

@@ -2,7 +2,7 @@ import { MODEL_LIMIT_MOLAL } from './activity';
 import type { Problem } from './problem';
 import type { Equilibrium, JointJacobian } from './solver';
 import { jointJacobian, lnGammaZ2For } from './solver';
-import { systemMoments } from './speciation';
+import { fractionsAt } from './speciation';
 
 export interface SpeciesRow {
   species: string;
@@ -26,9 +26,7 @@ export function speciesRows(eq: Equilibrium): SpeciesRow[] {
   const rows: SpeciesRow[] = [row(p, 'H⁺', 1, Math.exp(eq.lnH)), row(p, 'OH⁻', -1, Math.exp(p.lnKwc - eq.lnH))];
   for (const ion of p.ions) rows.push(row(p, ionLabel(ion.id), ion.charge, ion.concentrationM));
   p.systems.forEach((s, i) => {
-    const fractions = new Float64Array(s.lnCumK.length);
-    systemMoments(s.lnCumK, eq.lnH, { mean: 0, variance: 0 }, fractions);
-    fractions.forEach((alpha, j) => rows.push(row(p, s.system.forms[j] ?? `${s.system.name} form ${j}`, s.z0 - j, alpha * p.totalsM[i], s.system.id)));
+    fractionsAt(s.lnCumK, eq.lnH).forEach((alpha, j) => rows.push(row(p, s.system.forms[j] ?? `${s.system.name} form ${j}`, s.z0 - j, alpha * p.totalsM[i], s.system.id)));
   });
   return rows;
 }
@@ -84,9 +82,7 @@ export function modelWarning(eq: Equilibrium): string {
     // The total solubility in water stands in for the form's own: a little higher, so this warns late, not early.
     const sol = s.system.formSolubility;
     if (sol && p.totalsM[i] > sol.maxM) {
-      const fractions = new Float64Array(s.lnCumK.length);
-      systemMoments(s.lnCumK, eq.lnH, { mean: 0, variance: 0 }, fractions);
-      const formM = fractions[sol.formIndex] * p.totalsM[i];
+      const formM = fractionsAt(s.lnCumK, eq.lnH)[sol.formIndex] * p.totalsM[i];
       if (formM > sol.maxM) {
         warnings.push(`${s.system.forms[sol.formIndex]} ${formM.toPrecision(3)} mol/L is above its solubility, about ${sol.maxM} mol/L at ${sol.temperatureC} °C: ${sol.consequence}`);
       }

@@ -50,15 +50,15 @@ function mixtureRows(m: MixtureInput, top: number, left: number): { rows: BlockC
 }
 
 /** The mixture's arguments as the cells reference them. */
-function mixtureArgs(refs: ReturnType<typeof mixtureRows>['refs']): string {
+function refArgs(refs: ReturnType<typeof mixtureRows>['refs']): string {
   return `${refs.reagents},${refs.amounts},${refs.units},${refs.volume},${refs.temperature}`;
 }
 
 export function phBlock(m: MixtureInput, top: number, left: number): Block {
   const { rows, refs } = mixtureRows(m, top, left);
-  rows.push(['pH', `=PROTIC.PH(${mixtureArgs(refs)})`, '']);
+  rows.push(['pH', `=PROTIC.PH(${refArgs(refs)})`, '']);
   // Beside every result, so a number outside the model's range is never silent in the record.
-  rows.push(['Warnings', `=PROTIC.WARNINGS(${mixtureArgs(refs)})`, '']);
+  rows.push(['Warnings', `=PROTIC.WARNINGS(${refArgs(refs)})`, '']);
   return { cells: pad(rows) };
 }
 
@@ -68,7 +68,7 @@ export function titrantBlock(m: MixtureInput, titrant: string, targetPH: number,
   rows.push(['Target pH', targetPH, '']);
   const titrantRef = address(next, left + 1), targetRef = address(next + 1, left + 1);
   rows.push(['Titrant to add', `=PROTIC.TITRANT(${targetRef},${refs.reagents},${refs.amounts},${refs.units},${refs.volume},${titrantRef},${refs.temperature})`, 'mL or g']);
-  rows.push(['Warnings (before titrant)', `=PROTIC.WARNINGS(${mixtureArgs(refs)})`, '']);
+  rows.push(['Warnings (before titrant)', `=PROTIC.WARNINGS(${refArgs(refs)})`, '']);
   return { cells: pad(rows) };
 }
 
@@ -76,7 +76,7 @@ export function titrantBlock(m: MixtureInput, titrant: string, targetPH: number,
 export function speciesBlock(m: MixtureInput, speciesRows: number, constantsRows: number, top: number, left: number): Block {
   const { rows, refs } = mixtureRows(m, top, left);
   for (const [fn, spillRows] of [['SPECIES', speciesRows], ['CONSTANTS', constantsRows]] as const) {
-    rows.push([`=PROTIC.${fn}(${mixtureArgs(refs)})`, '', '', '', '']);
+    rows.push([`=PROTIC.${fn}(${refArgs(refs)})`, '', '', '', '']);
     for (let i = 1; i < spillRows; i++) rows.push(['', '', '', '', '']);
   }
   return { cells: pad(rows) };
