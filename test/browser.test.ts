@@ -70,7 +70,7 @@ describe('the side pane in headless Chromium', () => {
     const writes = await page.evaluate(() => (window as unknown as { __writes: { at: number[]; formulas: unknown[][] }[] }).__writes);
     expect(writes[0].at).toEqual([1, 1, 7, 3]);
     expect(writes[0].formulas[0]).toEqual(['Reagent', 'Amount', 'Unit']);
-    expect(writes[0].formulas[5][1]).toBe('=PROTIC.PH(B3:B4,C3:C4,D3:D4,C5,C6)');
+    expect(writes[0].formulas[5][1]).toBe('=PROTIC.PHMIX(B3:B4,C3:C4,D3:D4,C5,C6)');
 
     await page.click('#preview');
     expect(await page.locator('#curve-chart path.curve').count()).toBe(1);
@@ -140,7 +140,7 @@ describe('the side pane in headless Chromium', () => {
     expect(writes[0].formulas[5][0]).toBe('=PROTIC.SPECIES(B3:B4,C3:C4,D3:D4,C5,C6)');
     expect(writes[0].at[3]).toBe(5);
     expect(writes[1].formulas[4]).toEqual(['Temperature (°C)', 'pH', 'Warnings']);
-    expect(writes[1].formulas[5]).toEqual([4, '=PROTIC.PH(B3:B4,C3:C4,D3:D4,C5,B7)', '=PROTIC.WARNINGS(B3:B4,C3:C4,D3:D4,C5,B7)']);
+    expect(writes[1].formulas[5]).toEqual([4, '=PROTIC.PHMIX(B3:B4,C3:C4,D3:D4,C5,B7)', '=PROTIC.WARNINGS(B3:B4,C3:C4,D3:D4,C5,B7)']);
     expect(await page.textContent('#status')).toMatch(/^Wrote B2:D/);
     await page.close();
   }, 60000);

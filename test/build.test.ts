@@ -9,7 +9,7 @@ const out = mkdtempSync(join(tmpdir(), 'protic-build-'));
 execFileSync(process.execPath, [require.resolve('webpack-cli/bin/cli.js'), '--mode', 'production', '--output-path', out], { stdio: 'pipe' });
 
 const CONTRACT: Record<string, string[]> = {
-  PH: ['reagents', 'amounts', 'units', 'volume', 'temperature', 'model'],
+  PHMIX: ['reagents', 'amounts', 'units', 'volume', 'temperature', 'model'],
   TITRANT: ['targetPH', 'reagents', 'amounts', 'units', 'volume', 'titrant', 'temperature', 'model', 'resultUnit'],
   CURVE: ['reagents', 'amounts', 'units', 'volume', 'titrant', 'maxAmount', 'points', 'temperature', 'model', 'resultUnit'],
   FRACTIONS: ['system', 'pH', 'temperature', 'ionicStrength'],

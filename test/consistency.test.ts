@@ -7,7 +7,7 @@ const U = [['g'], ['g'], ['g']];
 const row = (table: (string | number)[][], label: string): (string | number)[] => table.find((r) => r[0] === label)!;
 
 describe('the cell functions agree with one another', () => {
-  test.each([25, 4, 37])('CURVE points are the PH of the mixture with that much titrant, at %d °C', (t) => {
+  test.each([25, 4, 37])('CURVE points are the PHMIX of the mixture with that much titrant, at %d °C', (t) => {
     const curve = impl.curve(R, A, U, 1, '1 M NaOH', 20, 5, t) as number[][];
     for (const [mL, pH] of curve) {
       expect(pH).toBeCloseTo(impl.ph([...R, ['1 M NaOH']], [...A, [mL]], [...U, ['mL']], 1 + mL / 1000, t), 12);

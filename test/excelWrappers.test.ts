@@ -23,12 +23,12 @@ function errorOf(run: () => unknown): StandInError {
 
 describe('the Excel wrappers', () => {
   test('a value comes back as the engine computes it; omitted optionals arrive as null', () => {
-    expect(EXCEL_FUNCTIONS.PH(R, A, U, 1, null, null)).toBeCloseTo(6.8759, 4);
+    expect(EXCEL_FUNCTIONS.PHMIX(R, A, U, 1, null, null)).toBeCloseTo(6.8759, 4);
     expect(EXCEL_FUNCTIONS.VERSION()).toMatch(/^Protic \d+\.\d+\.\d+; catalogue /);
     expect(EXCEL_FUNCTIONS.FRACTIONS('phosphate', 7.2, null, null)[0]).toHaveLength(4);
   });
   test('bad input is #VALUE! with the message', () => {
-    const e = errorOf(() => EXCEL_FUNCTIONS.PH([['unobtainium']], [[1]], U, 1));
+    const e = errorOf(() => EXCEL_FUNCTIONS.PHMIX([['unobtainium']], [[1]], U, 1));
     expect(e.code).toBe('#VALUE!');
     expect(e.message).toMatch(/^reagents, row 1: unknown reagent/);
   });
@@ -38,6 +38,6 @@ describe('the Excel wrappers', () => {
     expect(e.message).toMatch(/other side/);
   });
   test('every contract function is exported for association', () => {
-    expect(Object.keys(EXCEL_FUNCTIONS).sort()).toEqual(['CAPACITY', 'CONSTANTS', 'CURVE', 'FRACTIONS', 'IONICSTRENGTH', 'MOLARMASS', 'PH', 'PKA', 'RECIPE', 'SPECIES', 'TITRANT', 'VERSION', 'WARNINGS']);
+    expect(Object.keys(EXCEL_FUNCTIONS).sort()).toEqual(['CAPACITY', 'CONSTANTS', 'CURVE', 'FRACTIONS', 'IONICSTRENGTH', 'MOLARMASS', 'PHMIX', 'PKA', 'RECIPE', 'SPECIES', 'TITRANT', 'VERSION', 'WARNINGS']);
   });
 });

@@ -45,7 +45,7 @@ describe('writing blocks into the sheet (office-addin-mock)', () => {
       ['Na2HPO4', 3.55, 'g'],
       ['Volume (L)', 1, ''],
       ['Temperature (°C)', 25, ''],
-      ['pH', '=PROTIC.PH(C4:C5,D4:D5,E4:E5,D6,D7)', ''],
+      ['pH', '=PROTIC.PHMIX(C4:C5,D4:D5,E4:E5,D6,D7)', ''],
       ['Warnings', '=PROTIC.WARNINGS(C4:C5,D4:D5,E4:E5,D6,D7)', ''],
     ]);
   });
@@ -96,7 +96,7 @@ describe('writing blocks into the sheet (office-addin-mock)', () => {
     expect(block.cells.slice(0, 5)).toEqual([
       ['Reagent', 'Amount', 'Unit'], ['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'], ['Volume (L)', 1, ''], ['Temperature (°C)', 'pH', 'Warnings'],
     ]);
-    expect(block.cells[5]).toEqual([4, '=PROTIC.PH(A2:A3,B2:B3,C2:C3,B4,A6)', '=PROTIC.WARNINGS(A2:A3,B2:B3,C2:C3,B4,A6)']);
+    expect(block.cells[5]).toEqual([4, '=PROTIC.PHMIX(A2:A3,B2:B3,C2:C3,B4,A6)', '=PROTIC.WARNINGS(A2:A3,B2:B3,C2:C3,B4,A6)']);
     const v = evaluateSheet(block.cells.map((r) => r.map((c) => (c === '' ? null : c))));
     WHAT_IF_TEMPERATURES_C.forEach((t, i) => {
       expect(v[5 + i][1]).toBeCloseTo(impl.ph([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, t), 12);

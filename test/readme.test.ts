@@ -20,7 +20,7 @@ function halfUlp(printed: string): number {
 }
 
 const NUMERIC: [string, string, (v: SheetValue[][]) => SheetValue[]][] = [
-  ['=PROTIC.PH(A1:A2,B1:B2,C1:C2,1)', '6.8759', (v) => [v[0][0]]],
+  ['=PROTIC.PHMIX(A1:A2,B1:B2,C1:C2,1)', '6.8759', (v) => [v[0][0]]],
   ['=PROTIC.TITRANT(7.4,A1:A2,B1:B2,C1:C2,1,"1 M NaOH")', '13.913', (v) => [v[0][0]]],
   ['=PROTIC.CURVE(A1:A2,B1:B2,C1:C2,1,"1 M NaOH",20,3)', '0, 6.8759 / 10, 7.2280 / 20, 7.8016', (v) => v.slice(0, 3).flatMap((r) => r.slice(0, 2))],
   ['=PROTIC.FRACTIONS("phosphate",7.2)', '4.43e-6, 0.49884, 0.50115, 3.55e-6', (v) => v[0].slice(0, 4)],

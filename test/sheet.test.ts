@@ -20,14 +20,14 @@ function sheet(extra: (string | number | null)[][]): SheetValue[][] {
 
 describe('cell functions in HyperFormula', () => {
   test('ranges, a single unit cell and a blank row', () => {
-    const v = sheet([['=PROTIC.PH(A2:A4,B2:B4,"g",1)'], ['=PROTIC.PH(A2:A4,B2:B4,C2:C4,1)']]);
+    const v = sheet([['=PROTIC.PHMIX(A2:A4,B2:B4,"g",1)'], ['=PROTIC.PHMIX(A2:A4,B2:B4,C2:C4,1)']]);
     expect(v[4][0]).toBeCloseTo(ph([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1), 12);
     expect(v[5][0]).toBe(v[4][0]);
     expect(Math.abs((v[4][0] as number) - 6.876)).toBeLessThan(0.01);
   });
 
   test('a 0 from an empty cell is a blank row, and "" too', () => {
-    const v = evaluateSheet([['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'], ['', 0, ''], ['=PROTIC.PH(A1:A3,B1:B3,C1:C3,1)']]);
+    const v = evaluateSheet([['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'], ['', 0, ''], ['=PROTIC.PHMIX(A1:A3,B1:B3,C1:C3,1)']]);
     expect(typeof v[3][0]).toBe('number');
   });
 
@@ -66,20 +66,20 @@ describe('cell functions in HyperFormula', () => {
   });
 
   test.each([
-    ['=PROTIC.PH("unobtainium",1,"g",1)', '#VALUE!', /unknown reagent/],
-    ['=PROTIC.PH(A2:A3,B2:B5,"g",1)', '#VALUE!', /different shapes/],
-    ['=PROTIC.PH(A2:A3,B2:B3,"g")', '#VALUE!', /final volume needed/],
-    ['=PROTIC.PH(A2:A3,B2:B3,"g",1,25,"pitzer")', '#VALUE!', /unknown activity model/],
-    ['=PROTIC.PH(A2:A3,B2:B3,"g",1,99)', '#VALUE!', /outside the range/],
+    ['=PROTIC.PHMIX("unobtainium",1,"g",1)', '#VALUE!', /unknown reagent/],
+    ['=PROTIC.PHMIX(A2:A3,B2:B5,"g",1)', '#VALUE!', /different shapes/],
+    ['=PROTIC.PHMIX(A2:A3,B2:B3,"g")', '#VALUE!', /final volume needed/],
+    ['=PROTIC.PHMIX(A2:A3,B2:B3,"g",1,25,"pitzer")', '#VALUE!', /unknown activity model/],
+    ['=PROTIC.PHMIX(A2:A3,B2:B3,"g",1,99)', '#VALUE!', /outside the range/],
     ['=PROTIC.TITRANT(5,A2:A3,B2:B3,"g",1,"1 M NaOH")', '#N/A', /other side/],
     ['=PROTIC.RECIPE("NaH2PO4·H2O","Na2HPO4·7H2O",11,0.1,1)', '#N/A', /cannot bracket/],
     ['=PROTIC.MOLARMASS("Na2HPO4)")', '#VALUE!', /character 8/],
     ['=PROTIC.PKA("phosphate",4)', '#VALUE!', /step from 1 to 3/],
-    ['=PROTIC.PH(A2:A3,B2:B3,"gallons",1)', '#VALUE!', /unit not allowed here/],
-    ['=PROTIC.PH(A2:A3,{3.4;-1},"g",1)', '#VALUE!', /row 2: amount not usable\. Received -1/],
+    ['=PROTIC.PHMIX(A2:A3,B2:B3,"gallons",1)', '#VALUE!', /unit not allowed here/],
+    ['=PROTIC.PHMIX(A2:A3,{3.4;-1},"g",1)', '#VALUE!', /row 2: amount not usable\. Received -1/],
     ['=PROTIC.FRACTIONS("phosphate",40)', '#VALUE!', /pH between −1 and 15/],
     ['=PROTIC.CURVE(A2:A3,B2:B3,"g",1,"NaOH",5,11,25,"davies","mL")', '#VALUE!', /g mg kg or mol mmol µmol for a solid titrant/],
-    ['=PROTIC.PH(TRUE(),"x",1)', '#VALUE!', /logical value TRUE/],
+    ['=PROTIC.PHMIX(TRUE(),"x",1)', '#VALUE!', /logical value TRUE/],
     ['=PROTIC.SPECIES(1/0,1,"g")', '#DIV/0!', /.*/], // the sheet's own error passes through untouched
   ])('%s gives %s with its message', (formula, error, pattern) => {
     const v = sheet([[formula]]);
@@ -92,7 +92,7 @@ describe('cell functions in HyperFormula', () => {
     const rows: (string | number | null)[][] = [['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'], ['NaCl', 0, 'mM']];
     for (let i = 0; i < 50; i++) {
       const r = i + 4;
-      rows.push([i * 5, `=PROTIC.PH({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;0}+{0;0;1}*A${r},{"g";"g";"mM"},1)`, `=PROTIC.IONICSTRENGTH(A$1:A$3,{3.4;3.55;0}+{0;0;1}*A${r},C$1:C$3,1)`]);
+      rows.push([i * 5, `=PROTIC.PHMIX({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;0}+{0;0;1}*A${r},{"g";"g";"mM"},1)`, `=PROTIC.IONICSTRENGTH(A$1:A$3,{3.4;3.55;0}+{0;0;1}*A${r},C$1:C$3,1)`]);
     }
     const v = evaluateSheet(rows);
     const table = v.slice(3, 53);
@@ -107,7 +107,7 @@ describe('cell functions in HyperFormula', () => {
     const rows: (string | number | null)[][] = [];
     for (const nacl of [0, 100, 300, 700, 1000]) {
       const r = rows.length + 1;
-      rows.push([nacl, `=PROTIC.PH({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;0}+{0;0;1}*A${r},{"g";"g";"mM"},1)`, `=PROTIC.WARNINGS({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;0}+{0;0;1}*A${r},{"g";"g";"mM"},1)`]);
+      rows.push([nacl, `=PROTIC.PHMIX({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;0}+{0;0;1}*A${r},{"g";"g";"mM"},1)`, `=PROTIC.WARNINGS({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;0}+{0;0;1}*A${r},{"g";"g";"mM"},1)`]);
     }
     const v = evaluateSheet(rows);
     expect(v.map((row) => typeof row[1])).toEqual(['number', 'number', 'number', 'number', 'number']);
@@ -117,7 +117,7 @@ describe('cell functions in HyperFormula', () => {
   });
 
   test('the runner prints full precision and messages on request', () => {
-    const out = runSheet('KH2PO4,3.4,g\nNa2HPO4,3.55,g\n"=PROTIC.PH(A1:A2,B1:B2,C1:C2,1)"\n"=PROTIC.PH(""x"",1,""g"",1)"\n', true);
+    const out = runSheet('KH2PO4,3.4,g\nNa2HPO4,3.55,g\n"=PROTIC.PHMIX(A1:A2,B1:B2,C1:C2,1)"\n"=PROTIC.PHMIX(""x"",1,""g"",1)"\n', true);
     const lines = out.trim().split('\n');
     expect(Number(lines[2])).toBeCloseTo(ph([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1), 14);
     expect(lines[3]).toMatch(/^"#VALUE! reagents, row 1: unknown reagent/);
@@ -128,7 +128,7 @@ describe('the runner with --systems', () => {
   afterEach(() => clearCustomDefinitions());
   test('custom systems from a JSON file are used by the cells', () => {
     expect(loadSystemsFile('examples/custom-systems.json')).toEqual([]);
-    const out = runSheet('zorbic acid,0.05,M\nsodium zorbate,0.05,M\n"=PROTIC.PH(A1:A2,B1:B2,C1:C2,,25,""ideal"")"\n"=PROTIC.PKA(""Zorbate"",1)"\n', false);
+    const out = runSheet('zorbic acid,0.05,M\nsodium zorbate,0.05,M\n"=PROTIC.PHMIX(A1:A2,B1:B2,C1:C2,,25,""ideal"")"\n"=PROTIC.PKA(""Zorbate"",1)"\n', false);
     const lines = out.trim().split('\n');
     expect(Number(lines[2])).toBeCloseTo(5.5, 2);
     expect(Number(lines[3])).toBe(5.5);

@@ -17,8 +17,8 @@ function run<T>(compute: () => T): T {
 
 /**
  * pH of a mixture at equilibrium, on the activity scale a calibrated meter reads.
- * @customfunction PH
- * @helpurl https://localhost:3000/README.md#ph
+ * @customfunction PHMIX
+ * @helpurl https://localhost:3000/README.md#phmix
  * @param reagents Reagent names, formulas (Na2HPO4·7H2O) or stocks (1 M HCl), one per row.
  * @param amounts Amount of each reagent, same shape as reagents.
  * @param units Unit of each amount (g mg kg µg mol mmol µmol M mM µM L mL µL): one cell or one per row.
@@ -27,7 +27,7 @@ function run<T>(compute: () => T): T {
  * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
  * @returns pH (activity scale).
  */
-function PH(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, model?: any): number {
+function PHMIX(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, model?: any): number {
   return run(() => impl.ph(reagents, amounts, units, volume, temperature, model));
 }
 
@@ -223,4 +223,4 @@ function VERSION(): string {
 }
 
 // The metadata plugin's loader appends CustomFunctions.associate for each @customfunction above.
-export const EXCEL_FUNCTIONS = { PH, TITRANT, CURVE, FRACTIONS, SPECIES, CONSTANTS, WARNINGS, IONICSTRENGTH, CAPACITY, PKA, RECIPE, MOLARMASS, VERSION };
+export const EXCEL_FUNCTIONS = { PHMIX, TITRANT, CURVE, FRACTIONS, SPECIES, CONSTANTS, WARNINGS, IONICSTRENGTH, CAPACITY, PKA, RECIPE, MOLARMASS, VERSION };

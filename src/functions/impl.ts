@@ -82,7 +82,7 @@ export function capacity(reagents: Cell, amounts: Cell, units: Cell, volume?: Ce
   return finite(bufferCapacity(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model))), 'buffer capacity');
 }
 
-/** The mixture's model warnings as one text, or "none": a column to keep beside PH in a table. */
+/** The mixture's model warnings as one text, or "none": a column to keep beside PHMIX in a table. */
 export function warnings(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): string {
   const warning = modelWarning(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model)));
   return warning === '' ? 'none' : warning;

@@ -56,7 +56,7 @@ function refArgs(refs: ReturnType<typeof mixtureRows>['refs']): string {
 
 export function phBlock(m: MixtureInput, top: number, left: number): Block {
   const { rows, refs } = mixtureRows(m, top, left);
-  rows.push(['pH', `=PROTIC.PH(${refArgs(refs)})`, '']);
+  rows.push(['pH', `=PROTIC.PHMIX(${refArgs(refs)})`, '']);
   // Beside every result, so a number outside the model's range is never silent in the record.
   rows.push(['Warnings', `=PROTIC.WARNINGS(${refArgs(refs)})`, '']);
   return { cells: pad(rows) };
@@ -93,7 +93,7 @@ export function temperatureTableBlock(m: MixtureInput, temperaturesC: number[], 
   temperaturesC.forEach((t, i) => {
     const cell = address(next + i, left);
     const args = `${refs.reagents},${refs.amounts},${refs.units},${refs.volume},${cell}`;
-    rows.push([t, `=PROTIC.PH(${args})`, `=PROTIC.WARNINGS(${args})`]);
+    rows.push([t, `=PROTIC.PHMIX(${args})`, `=PROTIC.WARNINGS(${args})`]);
   });
   return { cells: pad(rows) };
 }
