@@ -1,41 +1,23 @@
-import { execFileSync } from 'child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync } from 'fs';
-import { createServer } from 'http';
+import { mkdirSync, readFileSync } from 'fs';
 import type { Server } from 'http';
-import { tmpdir } from 'os';
-import { extname, join } from 'path';
-import { chromium } from 'playwright-core';
+import { join } from 'path';
 import type { Browser, Page } from 'playwright-core';
+import { buildAddin, closeAll, launchChromium, serveFolder } from './browser/harness';
 
-// The built pane in headless Chromium (Debian's package), with a stand-in Office host.
-const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
-const out = mkdtempSync(join(tmpdir(), 'protic-pane-'));
-const TYPES: Record<string, string> = { '.html': 'text/html', '.js': 'text/javascript', '.css': 'text/css', '.png': 'image/png', '.json': 'application/json' };
-let server: Server;
+
+// The built pane in headless Chromium, with a stand-in Office host.
+let server: Server | undefined;
 let browser: Browser;
 let origin = '';
 
 beforeAll(async () => {
-  if (!existsSync(CHROMIUM)) throw new Error(`Chromium not found at ${CHROMIUM}: install Debian's chromium package (.ci/run does)`);
-  execFileSync(process.execPath, [require.resolve('webpack-cli/bin/cli.js'), '--mode', 'production', '--output-path', out], { stdio: 'pipe' });
-  server = createServer((req, res) => {
-    const file = join(out, (req.url ?? '/').split('?')[0].replace(/^\/+/, '') || 'taskpane.html');
-    if (!file.startsWith(out) || !existsSync(file)) { res.writeHead(404); res.end(); return; }
-    res.writeHead(200, { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream' });
-    res.end(readFileSync(file));
-  });
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  const address = server.address();
-  origin = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}`;
-  browser = await chromium.launch({
-    executablePath: CHROMIUM,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  });
+  const out = buildAddin();
+  ({ server, origin } = await serveFolder(out));
+  browser = await launchChromium();
 }, 120000);
 
 afterAll(async () => {
-  await browser?.close();
-  await new Promise((resolve) => server?.close(resolve));
+  await closeAll(browser, server);
 });
 
 async function openPane(initialSettings: Record<string, string> = {}): Promise<{ page: Page; requests: string[]; dialogs: string[] }> {
