@@ -5,6 +5,7 @@ import { ArraySize, CellError, DetailedCellError, EmptyValue, ErrorType, Functio
 import type { RawCellContent } from 'hyperformula';
 import * as impl from '../../src/functions/impl';
 import { toCellFailure } from '../../src/functions/outcome';
+import { stock } from '../../src/functions/stock';
 
 type Impl = (...args: unknown[]) => unknown;
 
@@ -30,6 +31,7 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'RECIPE', fn: impl.recipe as Impl, arity: [5, 10], fallback: [2, 2] },
   { name: 'MOLARMASS', fn: impl.molarMass as Impl, arity: [1, 1] },
   { name: 'VERSION', fn: impl.version as Impl, arity: [0, 0] },
+  { name: 'STOCK', fn: stock as Impl, arity: [4, 5] },
 ];
 
 const SPILLS = new Set(['CURVE', 'FRACTIONS', 'SPECIES', 'CONSTANTS', 'RECIPE']);

@@ -32,3 +32,7 @@ export { WATER_RANGE_C, WATER_SOURCES, checkWaterRange, debyeHuckelA, pKw, water
 export { applyCustomDefinitions, clearCustomDefinitions } from './customSystems';
 export type { CustomFormDefinition, CustomSystemDefinition } from './customSystems';
 export { apparentPKas, fractionsAtPH } from './apparent';
+export { HANDLE_MAX_CHARS, HANDLE_VERSION, decodeHandle, encodeHandle, looksLikeHandle } from './stockHandle';
+export type { StockComposition } from './stockHandle';
+export { adjustedStockComposition, parseAdjustedStock } from './adjustedStock';
+export type { AdjustedStockText } from './adjustedStock';

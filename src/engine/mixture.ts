@@ -1,9 +1,13 @@
 import type { Reagent } from '../catalogue';
-import { fail, quote } from './failure';
+import { ProticError, fail, quote } from './failure';
 import { registryGeneration, resolveReagent } from './registry';
 import type { ResolvedReagent } from './registry';
 import { parseUnit, splitMassStock, splitStock } from './units';
 import type { Unit } from './units';
+import type { ActivityModel } from './activity';
+import { adjustedStockComposition, parseAdjustedStock } from './adjustedStock';
+import { decodeHandle, handleReagent, looksLikeHandle } from './stockHandle';
+import type { StockComposition } from './stockHandle';
 
 /** One batch-record row: a reagent, an amount and its unit (row is 1-based, for messages). */
 export interface MixtureRow {
@@ -36,27 +40,42 @@ export interface ReagentSpec {
   resolved: ResolvedReagent;
   /** for a stock such as `1.2 M HCl`, its concentration in mol/L */
   stockM?: number;
+  /** a made solution (a STOCK handle or a pH-adjusted stock): its reagent is one litre of it, stockM is 1 */
+  made?: StockComposition;
 }
 
 // Resolved reagent texts, so a table that repeats the same reagents parses each once.
 const specCache = new Map<string, ReagentSpec>();
 let specCacheGeneration = -1;
 
-/** Parses a reagent cell: a stock (`0.5 M NaOH`) or a catalogue name or formula. */
-export function parseReagentSpec(text: string, argument: string, row?: number): ReagentSpec {
+/**
+ * Parses a reagent cell: a stock (`0.5 M NaOH`), a made solution (a STOCK handle, or a pH-adjusted
+ * stock such as `1 M Tris-HCl pH 8.0`, whose composition depends on the activity model), or a
+ * catalogue name or formula.
+ */
+export function parseReagentSpec(text: string, argument: string, row?: number, model: ActivityModel = 'davies'): ReagentSpec {
   if (specCacheGeneration !== registryGeneration()) {
     specCache.clear();
     specCacheGeneration = registryGeneration();
   }
-  const hit = specCache.get(text);
+  const key = `${model}\u0000${text}`;
+  const hit = specCache.get(key);
   if (hit) return hit;
-  const spec = parseReagentSpecUncached(text, argument, row);
+  const spec = parseReagentSpecUncached(text, argument, row, model);
   if (specCache.size > 10000) specCache.clear();
-  specCache.set(text, spec);
+  specCache.set(key, spec);
   return spec;
 }
 
-function parseReagentSpecUncached(text: string, argument: string, row?: number): ReagentSpec {
+function madeSpec(made: StockComposition, text: string): ReagentSpec {
+  return { resolved: { reagent: handleReagent(made, text), molarMassGPerMol: 0, hydrateWater: 0, matchedBy: 'name' }, stockM: 1, made };
+}
+
+function parseReagentSpecUncached(text: string, argument: string, row: number | undefined, model: ActivityModel): ReagentSpec {
+  // made solutions first: a handle's readable part, or a bottle label, must never be read as a plain reagent
+  if (looksLikeHandle(text)) return madeSpec(decodeHandle(text, argument, row), text);
+  const adjusted = parseAdjustedStock(text);
+  if (adjusted) return madeSpec(adjustedStockComposition(adjusted, text, model, argument, row), text);
   const massStock = splitMassStock(text);
   if (massStock) {
     if (!(massStock.gramsPerL > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
@@ -72,7 +91,15 @@ function parseReagentSpecUncached(text: string, argument: string, row?: number):
     if (!(stock.concentrationM > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
     return { resolved: resolveReagent(stock.rest, argument, row), stockM: stock.concentrationM };
   }
-  return { resolved: resolveReagent(text, argument, row) };
+  try {
+    return { resolved: resolveReagent(text, argument, row) };
+  } catch (error) {
+    // the readable part of a STOCK cell without its exact part: it was cut short, say so
+    if (error instanceof ProticError && error.failure.code === 'unknown_reagent' && /^[^:]{1,200}: \S/.test(text)) {
+      fail({ code: 'bad_argument', argument, row, received: `the stock ${quote(text)}`, expected: 'a reagent, or a stock cell exactly as PROTIC.STOCK wrote it (this reads like a stock cell whose exact part is missing: it may have been cut short); make the stock again with STOCK rather than editing its text' });
+    }
+    throw error;
+  }
 }
 
 /** Moles per litre of what is dispensed by volume (stock or catalogue liquid), or undefined for a solid. */
@@ -95,9 +122,9 @@ function rowMoles(spec: ReagentSpec, amount: number, unit: Unit, volumeL: number
         return { moles: value / spec.resolved.molarMassGPerMol, volumeL: 0 };
       }
     case 'amount':
-      return { moles: value, volumeL: 0 };
     case 'concentration':
-      return { moles: value * (volumeL ?? 1), volumeL: 0 };
+      if (spec.made) fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit), expected: `a volume (L mL µL) of ${spec.made.name}, a made solution` });
+      return unit.kind === 'amount' ? { moles: value, volumeL: 0 } : { moles: value * (volumeL ?? 1), volumeL: 0 };
     case 'volume': {
       const perL = molesPerLitreDispensed(spec);
       if (perL === undefined) {
@@ -119,8 +146,8 @@ export function addReagent(contents: Contents, reagent: Reagent, moles: number):
  * mass, an amount or a volume; with only concentrations none is; with only stock volumes (and
  * concentrations) the volumes are added (additive-volume assumption).
  */
-export function buildContents(rows: MixtureRow[], volumeL: number | undefined): Contents {
-  const parsed = rows.map((row) => ({ row, spec: parseReagentSpec(row.reagent, 'reagents', row.row), unit: parseUnit(row.unit, 'units', row.row) }));
+export function buildContents(rows: MixtureRow[], volumeL: number | undefined, model: ActivityModel = 'davies'): Contents {
+  const parsed = rows.map((row) => ({ row, spec: parseReagentSpec(row.reagent, 'reagents', row.row, model), unit: parseUnit(row.unit, 'units', row.row) }));
   let finalVolumeL = volumeL;
   if (finalVolumeL === undefined) {
     const needsVolume = parsed.find((p) => p.unit.kind === 'mass' || p.unit.kind === 'amount');

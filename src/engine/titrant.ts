@@ -24,6 +24,7 @@ export function litresPerMole(spec: ReagentSpec): number {
 }
 
 function describeTitrant(spec: ReagentSpec): string {
+  if (spec.made) return spec.made.name;
   return spec.stockM !== undefined ? `${spec.stockM} M ${spec.resolved.reagent.name}` : spec.resolved.reagent.name;
 }
 
@@ -85,7 +86,8 @@ export function titrantUnit(value: unknown, spec: ReagentSpec, argument: string)
   const dispensed = molesPerLitreDispensed(spec) !== undefined;
   if (value === null || value === undefined || value === '') return findUnit(dispensed ? 'mL' : 'g') as Unit;
   const unit = typeof value === 'string' ? findUnit(value) : undefined;
-  const okKinds = dispensed ? ['volume', 'amount'] : ['mass', 'amount'];
+  // a made solution is only ever measured by volume: a "mole" of it is a litre
+  const okKinds = spec.made ? ['volume'] : dispensed ? ['volume', 'amount'] : ['mass', 'amount'];
   if (spec.resolved.reagent.liquid && spec.stockM === undefined) okKinds.push('mass');
   if (!unit || !okKinds.includes(unit.kind)) {
     fail({ code: 'bad_unit', argument, received: quote(value),

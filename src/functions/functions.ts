@@ -1,6 +1,7 @@
 /* global CustomFunctions */
 import * as impl from './impl';
 import { toCellFailure } from './outcome';
+import { stock } from './stock';
 
 // The cell functions Excel loads. Each is a thin wrapper over impl.ts; a failure becomes a
 // #VALUE! (bad input) or #N/A (no such result) with one clear message.
@@ -222,5 +223,20 @@ function VERSION(): string {
   return run(() => impl.version());
 }
 
+/**
+ * A made solution as one text cell (name, what went in, to what volume, and its exact composition), usable wherever a reagent is, dispensed by volume.
+ * @customfunction STOCK
+ * @helpurl https://localhost:3000/README.md#stock
+ * @param reagents Reagents of the stock, one per row (names, formulas, stocks, or other STOCK cells).
+ * @param amounts Amount of each reagent.
+ * @param units Unit of each amount: one cell or one per row.
+ * @param volume Final volume of the stock, L.
+ * @param [name] A name for the stock, shown in the cell (e.g. 10× PBS).
+ * @returns The stock's handle text.
+ */
+function STOCK(reagents: any[][], amounts: any[][], units: any[][], volume: number, name?: any): string {
+  return run(() => stock(reagents, amounts, units, volume, name));
+}
+
 // The metadata plugin's loader appends CustomFunctions.associate for each @customfunction above.
-export const EXCEL_FUNCTIONS = { PHMIX, TITRANT, CURVE, FRACTIONS, SPECIES, CONSTANTS, WARNINGS, IONICSTRENGTH, CAPACITY, PKA, RECIPE, MOLARMASS, VERSION };
+export const EXCEL_FUNCTIONS = { PHMIX, TITRANT, CURVE, FRACTIONS, SPECIES, CONSTANTS, WARNINGS, IONICSTRENGTH, CAPACITY, PKA, RECIPE, MOLARMASS, VERSION, STOCK };

@@ -54,14 +54,15 @@ function readMixture(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, t
   };
 }
 
-function contentsOf(rows: MixtureRow[], volumeL: number | undefined, key = rowsKey(rows, volumeL)): Contents {
-  return remember(contentsCache, key, () => buildContents(rows, volumeL));
+function contentsOf(rows: MixtureRow[], volumeL: number | undefined, model: ActivityModel = 'davies', key = rowsKey(rows, volumeL)): Contents {
+  // the model is part of the key: a pH-adjusted stock's composition is solved under it
+  return remember(contentsCache, `${key}|${model}`, () => buildContents(rows, volumeL, model));
 }
 
 function equilibriumOf(m: MixtureArgs): Equilibrium {
   const mixtureKey = rowsKey(m.rows, m.volumeL);
   return remember(equilibriumCache, `${mixtureKey}|${m.temperatureC}|${m.model}`,
-    () => solve(prepareProblem(contentsOf(m.rows, m.volumeL, mixtureKey), m.temperatureC, m.model)));
+    () => solve(prepareProblem(contentsOf(m.rows, m.volumeL, m.model, mixtureKey), m.temperatureC, m.model)));
 }
 
 /** The last guard before a number reaches a cell: never NaN or Infinity. */
@@ -144,9 +145,9 @@ export function titrant(targetPH: Cell, reagents: Cell, amounts: Cell, units: Ce
   const target = requiredNumber(targetPH, 'targetPH', PH_RULE);
   const m = readMixture(reagents, amounts, units, null, temperature, model);
   const volumeL = requiredVolume(volume);
-  const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant');
+  const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant', undefined, m.model);
   const unit = titrantUnit(resultUnit, spec, 'resultUnit');
-  const result = titrantForTarget(target, contentsOf(m.rows, volumeL), spec, m.temperatureC, m.model);
+  const result = titrantForTarget(target, contentsOf(m.rows, volumeL, m.model), spec, m.temperatureC, m.model);
   return finite(molesToUnit(result.moles, spec, unit), 'titrant');
 }
 
@@ -154,12 +155,12 @@ export function curve(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, 
   points?: Cell, temperature?: Cell, model?: Cell, resultUnit?: Cell): CellScalar[][] {
   const m = readMixture(reagents, amounts, units, null, temperature, model);
   const volumeL = requiredVolume(volume);
-  const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant');
+  const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant', undefined, m.model);
   const max = requiredNumber(maxAmount, 'maxAmount', { min: 0, max: 1e9, expected: 'the largest titrant amount, above zero, in resultUnit' });
   if (max === 0) fail({ code: 'bad_argument', argument: 'maxAmount', received: '0', expected: 'the largest titrant amount, above zero, in resultUnit' });
   const n = optionalNumber(points, 'points', 51, { min: 2, max: 1001, integer: true, expected: 'a whole number of points from 2 to 1001 (default 51)' });
   const unit = titrantUnit(resultUnit, spec, 'resultUnit');
-  const contents = contentsOf(m.rows, volumeL);
+  const contents = contentsOf(m.rows, volumeL, m.model);
   const out: CellScalar[][] = [];
   for (let i = 0; i < n; i++) {
     const amount = (max * i) / (n - 1);
@@ -214,7 +215,7 @@ export function recipe(acidForm: Cell, baseForm: Cell, targetPH: Cell, concentra
   const rows = hasOthers
     ? mixtureRows(otherReagents, otherAmounts ?? null, otherUnits ?? null, { reagents: 'otherReagents', amounts: 'otherAmounts', units: 'otherUnits' })
     : [];
-  const others = rows.length > 0 ? contentsOf(rows, volumeL) : { systemMoles: new Map(), ionMoles: new Map(), volumeL, rows: [] };
+  const others = rows.length > 0 ? contentsOf(rows, volumeL, activityModel) : { systemMoles: new Map(), ionMoles: new Map(), volumeL, rows: [] };
   checkWaterRange(temperatureC);
   const lines = recipeForTarget(acid, base, target, concentrationM, volumeL, others, temperatureC, activityModel);
   return lines.map((line, i) => {

@@ -1,0 +1,85 @@
+import type { ActivityModel } from './activity';
+import { fail, quote } from './failure';
+import { addReagent } from './mixture';
+import type { Contents, ReagentSpec } from './mixture';
+import { prepareProblem } from './problem';
+import { resolveReagent } from './registry';
+import type { ResolvedReagent } from './registry';
+import { solve } from './solver';
+import type { StockComposition } from './stockHandle';
+import { titrantForTarget } from './titrant';
+import { findUnit } from './units';
+import type { Unit } from './units';
+
+// A stock as the trade writes it on a bottle: `1 M Tris pH 8.0 with HCl`, `0.5 M Na2EDTA·2H2O pH 8.0
+// with NaOH at 25 °C`, or the shorthand `1 M Tris-HCl pH 8.0` (Tris base brought to pH 8.0 with HCl).
+// Its composition is solved at its own concentration and temperature, made up to volume.
+
+export interface AdjustedStockText {
+  concentrationM: number;
+  reagentText: string;
+  targetPH: number;
+  /** the titrant as written, or undefined to choose HCl or NaOH by the side of the target */
+  titrantText?: string;
+  temperatureC: number;
+}
+
+const NUMBER = String.raw`(\d+(?:[.,]\d+)?(?:[eE][-+]?\d+)?|[.,]\d+)`;
+const PATTERN = new RegExp(String.raw`^\s*${NUMBER}\s*(M|mM|[uµμ]M|mol\/[lL]|mmol\/[lL])\s+(.+?)\s*,?\s+pH\s*${NUMBER}`
+  + String.raw`(?:\s+(?:with|using)\s+(.+?))?(?:\s+at\s+${NUMBER}\s*°?\s*C)?\s*$`);
+// `Tris-HCl`, `HEPES-NaOH`, `MES/KOH`: the base (or acid) then the titrant that set the pH
+const SHORTHAND = /^(.+?)\s*[-/–]\s*(HCl|NaOH|KOH)$/i;
+
+function num(text: string): number {
+  return Number(text.replace(',', '.'));
+}
+
+/** Reads `<concentration> <reagent> pH <x> [with <titrant>] [at <T> °C]`, or undefined when the text is not one. */
+export function parseAdjustedStock(text: string): AdjustedStockText | undefined {
+  const m = PATTERN.exec(text);
+  if (!m) return undefined;
+  const unit = findUnit(m[2].replace(/l$/, 'L')) as Unit;
+  let reagentText = m[3].trim();
+  let titrantText = m[5]?.trim();
+  const short = SHORTHAND.exec(reagentText);
+  if (short && titrantText === undefined) {
+    reagentText = short[1];
+    titrantText = short[2];
+  }
+  return { concentrationM: num(m[1]) * unit.toBase, reagentText, targetPH: num(m[4]), titrantText, temperatureC: m[6] === undefined ? 25 : num(m[6]) };
+}
+
+/** The titrant as a pure compound made up to volume: it adds no volume of its own. */
+function asMadeUpToVolume(resolved: ResolvedReagent): ReagentSpec {
+  return { resolved: { ...resolved, reagent: { ...resolved.reagent, liquid: undefined } } };
+}
+
+/**
+ * Composition per litre of a pH-adjusted stock under `model`.
+ * @example adjustedStockComposition(parseAdjustedStock('1 M Tris-HCl pH 8.0')!, text, 'davies')
+ *   → Tris 1 mol/L, Cl⁻ ≈ 0.4 mol/L (the HCl that brings it to pH 8.0 at 25 °C)
+ */
+export function adjustedStockComposition(s: AdjustedStockText, text: string, model: ActivityModel, argument = 'reagents', row?: number): StockComposition {
+  if (!(s.concentrationM > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
+  const reagent = resolveReagent(s.reagentText, argument, row);
+  const contents: Contents = { systemMoles: new Map(), ionMoles: new Map(), volumeL: 1, rows: [] };
+  addReagent(contents, reagent.reagent, s.concentrationM);
+  const alonePH = solve(prepareProblem(contents, s.temperatureC, model)).pH;
+  const titrantText = s.titrantText ?? (s.targetPH < alonePH ? 'HCl' : 'NaOH');
+  const titrant = asMadeUpToVolume(resolveReagent(titrantText, argument, row));
+  const result = titrantForTarget(s.targetPH, contents, titrant, s.temperatureC, model);
+  addReagent(contents, titrant.resolved.reagent, result.moles);
+  // exact or refused: the stock as made must read its own pH
+  const madePH = solve(prepareProblem(contents, s.temperatureC, model)).pH;
+  if (!(Math.abs(madePH - s.targetPH) <= 1e-6)) {
+    fail({ code: 'no_convergence', argument, row, received: quote(text), expected: `a stock whose adjustment settles (the computed composition reads pH ${madePH.toFixed(4)}); please report this case` });
+  }
+  const name = `${String(Number(s.concentrationM.toPrecision(6)))} M ${reagent.reagent.name} pH ${s.targetPH}`;
+  return {
+    name,
+    summary: `${reagent.reagent.name} ${s.concentrationM} mol/L brought to pH ${s.targetPH} with ${titrant.resolved.reagent.name}`
+      + ` (${Number((result.moles).toPrecision(6))} mol/L) at ${s.temperatureC} °C, ${model}, made up to volume`,
+    systemsMPerL: contents.systemMoles,
+    ionsMPerL: contents.ionMoles,
+  };
+}
