@@ -29,6 +29,7 @@ const NUMERIC: [string, string, (v: SheetValue[][]) => SheetValue[]][] = [
   ['=PROTIC.PKA("Tris",1,37)', '7.7527', (v) => [v[0][0]]],
   ['=PROTIC.PKA("phosphate",2,25,0.15)', '6.8389', (v) => [v[0][0]]],
   ['=PROTIC.MOLARMASS("Na2HPO4·7H2O")', '268.06', (v) => [v[0][0]]],
+  ['=PROTIC.PHMIX("1 M Tris-HCl pH 8.0",50,"mL",1)', '7.9413', (v) => [v[0][0]]],
 ];
 
 describe('README examples evaluate to what the README prints', () => {
