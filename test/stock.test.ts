@@ -1,7 +1,7 @@
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
 import type { SheetValue } from '../scripts/lib/sheetEngine';
 import { decodeHandle, encodeHandle } from '../src/engine';
-import { ionicStrength, molarMass, ph, species, titrant } from '../src/functions/impl';
+import { ionicStrength, molarMass, ph, species, titrant, warnings } from '../src/functions/impl';
 import { stock } from '../src/functions/stock';
 
 // STOCK handles and pH-adjusted stocks, through the real spreadsheet engine where a user would type them.
@@ -139,5 +139,16 @@ describe('the README example', () => {
     expect(readme).toContain(`\`=PROTIC.STOCK(A1:A2,B1:B2,C1:C2,1,"10× phosphate")\` → \`${visible}…⟧\``);
     expect(readme).toContain('`=PROTIC.PHMIX(A3,100,"mL",1)`, gives the pH of the 1× weigh-out, 6.8759');
     expect(Math.abs((v[3][0] as number) - 6.8759)).toBeLessThan(5e-5);
+  });
+});
+
+describe('a stock made outside the model says so wherever it is used', () => {
+  test('1 M Tris-HCl pH 8.0 (I ≈ 0.6 mol/kg) carries its warning into WARNINGS of a dilution, and through a STOCK of it', () => {
+    const direct = warnings([['1 M Tris-HCl pH 8.0']], [[50]], 'mL', 1);
+    expect(direct).toMatch(/the stock 1 M Tris hydrochloride|the stock 1 M Tris pH 8 itself, as adjusted at 25 °C: ionic strength 0\.\d+ mol\/kg is above/);
+    const handle = stock('1 M Tris-HCl pH 8.0', 1, 'L', 1, 'Tris stock');
+    expect(warnings([[handle]], [[50]], 'mL', 1)).toBe(direct);
+    // a dilute pH stock inside the model's range carries nothing
+    expect(warnings([['0.05 M Tris-HCl pH 8.0']], [[100]], 'mL', 1)).toBe('none');
   });
 });

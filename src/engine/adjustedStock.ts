@@ -3,6 +3,7 @@ import { fail, quote } from './failure';
 import { addReagent } from './mixture';
 import type { Contents, ReagentSpec } from './mixture';
 import { prepareProblem } from './problem';
+import { modelWarning } from './results';
 import { resolveReagent } from './registry';
 import type { ResolvedReagent } from './registry';
 import { solve } from './solver';
@@ -70,7 +71,8 @@ export function adjustedStockComposition(s: AdjustedStockText, text: string, mod
   const result = titrantForTarget(s.targetPH, contents, titrant, s.temperatureC, model);
   addReagent(contents, titrant.resolved.reagent, result.moles);
   // exact or refused: the stock as made must read its own pH
-  const madePH = solve(prepareProblem(contents, s.temperatureC, model)).pH;
+  const made = solve(prepareProblem(contents, s.temperatureC, model));
+  const madePH = made.pH;
   if (!(Math.abs(madePH - s.targetPH) <= 1e-6)) {
     fail({ code: 'no_convergence', argument, row, received: quote(text), expected: `a stock whose adjustment settles (the computed composition reads pH ${madePH.toFixed(4)}); please report this case` });
   }
@@ -81,5 +83,6 @@ export function adjustedStockComposition(s: AdjustedStockText, text: string, mod
       + ` (${Number((result.moles).toPrecision(6))} mol/L) at ${s.temperatureC} °C, ${model}, made up to volume`,
     systemsMPerL: contents.systemMoles,
     ionsMPerL: contents.ionMoles,
+    warning: modelWarning(made) === '' ? undefined : `the stock ${name} itself, as adjusted at ${s.temperatureC} °C: ${modelWarning(made)}`,
   };
 }

@@ -34,6 +34,8 @@ export interface Contents {
   ionMoles: Map<string, number>;
   volumeL: number;
   rows: RowAudit[];
+  /** warnings carried in by made solutions (a stock adjusted outside the model's range) */
+  notes?: string[];
 }
 
 export interface ReagentSpec {
@@ -166,6 +168,8 @@ export function buildContents(rows: MixtureRow[], volumeL: number | undefined, m
     const { moles, volumeL: rowVolumeL } = rowMoles(p.spec, p.row.amount, p.unit, finalVolumeL, p.row);
     addReagent(contents, p.spec.resolved.reagent, moles);
     contents.rows.push({ row: p.row.row, text: p.row.reagent, reagent: p.spec.resolved.reagent, moles, volumeL: rowVolumeL });
+    const note = p.spec.made?.warning;
+    if (note && !(contents.notes ??= []).includes(note)) contents.notes.push(note);
   }
   // The final volume includes every volume dispensed into it: less than that is a typo, not a solution.
   const dispensedL = contents.rows.reduce((sum, r) => sum + r.volumeL, 0);
@@ -177,5 +181,5 @@ export function buildContents(rows: MixtureRow[], volumeL: number | undefined, m
 }
 
 export function cloneContents(contents: Contents): Contents {
-  return { systemMoles: new Map(contents.systemMoles), ionMoles: new Map(contents.ionMoles), volumeL: contents.volumeL, rows: [...contents.rows] };
+  return { systemMoles: new Map(contents.systemMoles), ionMoles: new Map(contents.ionMoles), volumeL: contents.volumeL, rows: [...contents.rows], notes: contents.notes };
 }

@@ -46,6 +46,8 @@ export interface Problem {
   evaluations: number;
   /** every step as system index · 8 + step index, strongest acid first (for the starting guess) */
   stepOrder: Int32Array;
+  /** warnings the contents carried in (made solutions), shown with the model's own */
+  notes: readonly string[];
 }
 
 interface TemperatureConstants {
@@ -128,6 +130,7 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
     temperatureC, model, debyeHuckelA: water.debyeHuckelA, lnWaterDensity: water.lnWaterDensity, lnKw: water.lnKw,
     systems, totalsM: Float64Array.from(totals), ions, strongChargeM: 0, strongZ2M: 0, lnGammaZ2: 0, lnKwc: 0, evaluations: 0,
     stepOrder: stepOrderOf(systems),
+    notes: contents.notes ?? [],
   };
   updateIonSums(problem);
   setActivity(problem, 0);

@@ -99,5 +99,6 @@ export function modelWarning(eq: Equilibrium): string {
     const bound = binds ? p.ions.filter((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id)).map((ion) => ionLabel(ion.id)) : [];
     if (binds && p.totalsM[i] > 0 && bound.length > 0) warnings.push(`${s.system.name} with ${bound.join(' and ')}: ${binds.reason}`);
   });
+  warnings.push(...p.notes);
   return warnings.join('; ');
 }

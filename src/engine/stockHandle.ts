@@ -20,6 +20,8 @@ export interface StockComposition {
   summary: string;
   systemsMPerL: Map<string, number>;
   ionsMPerL: Map<string, number>;
+  /** the model warnings of how it was made (a 1 M stock adjusted outside the activity model's range), carried to every use */
+  warning?: string;
 }
 
 /** FNV-1a, 32 bit, as 8 hex digits: catches edits and truncation (not a security seal). */
@@ -48,7 +50,8 @@ function entries(map: Map<string, number>): string {
  */
 export function encodeHandle(c: StockComposition): string {
   const name = cleanLabel(c.name) || 'stock';
-  const body = `${name}: ${cleanLabel(c.summary)} ${OPEN}stock v${HANDLE_VERSION} s:${entries(c.systemsMPerL)} i:${entries(c.ionsMPerL)}`;
+  const warned = c.warning ? ` w:${encodeURIComponent(c.warning)}` : '';
+  const body = `${name}: ${cleanLabel(c.summary)} ${OPEN}stock v${HANDLE_VERSION} s:${entries(c.systemsMPerL)} i:${entries(c.ionsMPerL)}${warned}`;
   const text = `${body} #${checksum(body)}${CLOSE}`;
   if (text.length > HANDLE_MAX_CHARS) {
     fail({ code: 'bad_argument', argument: 'reagents', received: `a stock description of ${text.length} characters`, expected: `fewer rows or shorter names: a handle holds at most ${HANDLE_MAX_CHARS} characters` });
@@ -96,7 +99,7 @@ export function decodeHandle(text: string, argument = 'reagents', row?: number):
   }
   const hash = t.lastIndexOf(' #');
   if (hash < open || checksum(t.slice(0, hash)) !== t.slice(hash + 2, -1)) tampered(t, argument, row, 'its check digits do not match its text: it was edited or cut short');
-  const parts = /^stock v\d+ s:(\S*) i:(\S*) #[0-9a-f]{8}$/.exec(exact);
+  const parts = /^stock v\d+ s:(\S*) i:(\S*)(?: w:(\S+))? #[0-9a-f]{8}$/.exec(exact);
   if (!parts) tampered(t, argument, row, 'its exact part is not readable');
   const colon = t.indexOf(': ');
   const name = colon > 0 && colon < open ? t.slice(0, colon) : 'stock';
@@ -110,7 +113,13 @@ export function decodeHandle(text: string, argument = 'reagents', row?: number):
   }
   const knownIons = new Set(STRONG_IONS.map((i) => i.id));
   for (const id of ionsMPerL.keys()) if (!knownIons.has(id)) tampered(t, argument, row, `it names an ion "${id}" the catalogue does not have`);
-  return { name, summary: t.slice(colon + 2, open).trim(), systemsMPerL, ionsMPerL };
+  let warning: string | undefined;
+  try {
+    warning = parts[3] === undefined ? undefined : decodeURIComponent(parts[3]);
+  } catch {
+    tampered(t, argument, row, 'its warning part is not readable');
+  }
+  return { name, summary: t.slice(colon + 2, open).trim(), systemsMPerL, ionsMPerL, warning };
 }
 
 /** The made solution as a reagent dispensed by volume: one "formula unit" is one litre of it. */

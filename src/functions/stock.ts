@@ -25,10 +25,12 @@ export function stock(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, 
   // rows inside a stock are made up under the default model (davies): a pH-adjusted row is adjusted under it
   const contents = buildContents(rows, volumeL);
   const perL = (m: Map<string, number>): Map<string, number> => new Map([...m.entries()].map(([k, v]) => [k, v / volumeL]));
+  const carried = [...new Set(rows.map((row) => parseReagentSpec(row.reagent, 'reagents', row.row).made?.warning).filter((w): w is string => !!w))];
   return encodeHandle({
     name: label,
     summary: `${rows.map(rowSummary).join(', ')}, to ${volumeL} L`,
     systemsMPerL: perL(contents.systemMoles),
     ionsMPerL: perL(contents.ionMoles),
+    warning: carried.length > 0 ? carried.join('; ') : undefined,
   });
 }
