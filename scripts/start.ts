@@ -47,7 +47,7 @@ async function main(): Promise<void> {
       '  Excel on Windows: put manifest.xml in a shared folder, add the folder under File > Options > Trust Center >',
       '    Trust Center Settings > Trusted Add-in Catalogs, restart Excel, then Home > Add-ins > Shared Folder.',
       '  Excel on Mac: copy manifest.xml to ~/Library/Containers/com.microsoft.Excel/Data/Documents/wef/ and restart Excel.',
-      'Then type =PROTIC.PHMIX( in a cell, or open Home > Buffers. Ctrl+C stops the server.',
+      'Then type =PROTIC.PHMIX( in a cell, or open Home > pH & Buffers. Ctrl+C stops the server.',
       '',
     ].join('\n'));
   });
