@@ -1,4 +1,3 @@
-/* eslint-disable no-undef */
 // Builds dist/: functions.json (from functions.ts JSDoc), the functions and taskpane bundles
 // sharing one runtime page (taskpane.html) and one engine chunk, the help pages, the icons and
 // the manifest.

@@ -1,4 +1,3 @@
-/* eslint-disable no-undef */
 // The add-in's help, rendered at build time: README.md becomes help.html (one anchor per
 // function, as README's <a id> tags give them) and docs/support.md becomes support.html.
 // Plain CommonJS so webpack.config.js can require it without a TypeScript loader.
