@@ -164,6 +164,27 @@ describe('the built add-in', () => {
   });
 });
 
+describe('README', () => {
+  const readme = readFileSync('README.md', 'utf8');
+
+  test('the quick start is two commands on a machine with only Node and npm, and never asks for apt-get', () => {
+    const quick = readme.split('## Quick start')[1].split('\n## ')[0];
+    const block = /```sh\n([\s\S]*?)```/.exec(quick)![1].trim().split('\n').map((l) => l.replace(/#.*$/, '').trim());
+    expect(block).toEqual(['npm install && npm run demo', 'npm test']);
+    expect(readme).not.toMatch(/apt-get/);
+    expect(JSON.parse(readFileSync('package.json', 'utf8')).scripts.demo).toMatch(/scripts\/demo\.ts/);
+  });
+
+  test('says which Excel hosts run the add-in, what a production host must send, and how to debug on each host', () => {
+    expect(readme).toMatch(/Excel on the web, Excel on Windows \(Microsoft 365, retail perpetual Office 2016 and later/);
+    expect(readme).toMatch(/not on iPad/);
+    expect(readme).toMatch(/Access-Control-Allow-Origin: \*/);
+    expect(readme).toMatch(/WebView2/);
+    expect(readme).toMatch(/Safari Web Inspector/);
+    expect(readme).toMatch(/Office keeps an old `functions.json`/);
+  });
+});
+
 describe('manifest/manifest.xml', () => {
   const text = readFileSync('manifest/manifest.xml', 'utf8');
 
