@@ -34,6 +34,11 @@ class HelpPagesPlugin {
         const pages = renderHelpPages(fs.readFileSync(sources.readme, 'utf8'), fs.readFileSync(sources.support, 'utf8'));
         for (const [name, text] of Object.entries(pages)) compilation.emitAsset(name, new compiler.webpack.sources.RawSource(text));
       });
+      // a @helpurl written as README.md#anchor (the older form) lands on the rendered page too
+      compilation.hooks.processAssets.tap({ name: 'HelpPagesPlugin', stage: compiler.webpack.Compilation.PROCESS_ASSETS_STAGE_OPTIMIZE }, (assets) => {
+        const json = assets['functions.json'];
+        if (json) compilation.updateAsset('functions.json', new compiler.webpack.sources.RawSource(json.source().toString().split('/README.md#').join('/help.html#')));
+      });
     });
   }
 }
