@@ -31,4 +31,5 @@ function png(size: number): Buffer {
   const ihdr = Buffer.alloc(13); ihdr.writeUInt32BE(size, 0); ihdr.writeUInt32BE(size, 4); ihdr[8] = 8; ihdr[9] = 6;
   return Buffer.concat([Buffer.from([137, 80, 78, 71, 13, 10, 26, 10]), chunk('IHDR', ihdr), chunk('IDAT', deflateSync(raw)), chunk('IEND', Buffer.alloc(0))]);
 }
-for (const size of [16, 32, 64, 80]) writeFileSync(`assets/icon-${size}.png`, png(size));
+// the ribbon sizes the manifest lists (16, 32 and 80 required; 20, 24, 40, 48, 64 supported) and 64 for the high-resolution icon
+for (const size of [16, 20, 24, 32, 40, 48, 64, 80]) writeFileSync(`assets/icon-${size}.png`, png(size));

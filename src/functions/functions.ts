@@ -19,7 +19,7 @@ function run<T>(compute: () => T): T {
 /**
  * pH of a mixture at equilibrium, on the activity scale a calibrated meter reads.
  * @customfunction PHMIX
- * @helpurl https://localhost:3000/README.md#phmix
+ * @helpurl https://localhost:3000/help.html#phmix
  * @param reagents Reagent names, formulas (Na2HPO4·7H2O) or stocks (1 M HCl), one per row.
  * @param amounts Amount of each reagent, same shape as reagents.
  * @param units Unit of each amount (g mg kg µg mol mmol µmol M mM µM L mL µL): one cell or one per row.
@@ -35,7 +35,7 @@ function PHMIX(reagents: any[][], amounts: any[][], units: any[][], volume?: any
 /**
  * Amount of titrant that brings the mixture to a target pH, the titrant's own volume included.
  * @customfunction TITRANT
- * @helpurl https://localhost:3000/README.md#titrant
+ * @helpurl https://localhost:3000/help.html#titrant
  * @param targetPH Target pH (activity scale).
  * @param reagents Reagents of the mixture, one per row.
  * @param amounts Amount of each reagent.
@@ -55,7 +55,7 @@ function TITRANT(targetPH: number, reagents: any[][], amounts: any[][], units: a
 /**
  * Titration curve for charting: titrant added against pH.
  * @customfunction CURVE
- * @helpurl https://localhost:3000/README.md#curve
+ * @helpurl https://localhost:3000/help.html#curve
  * @param reagents Reagents of the mixture, one per row.
  * @param amounts Amount of each reagent.
  * @param units Unit of each amount: one cell or one per row.
@@ -76,7 +76,7 @@ function CURVE(reagents: any[][], amounts: any[][], units: any[][], volume: numb
 /**
  * Fraction of each form of an acid system at a pH, most protonated first.
  * @customfunction FRACTIONS
- * @helpurl https://localhost:3000/README.md#fractions
+ * @helpurl https://localhost:3000/help.html#fractions
  * @param system A system name (phosphate, citrate, Tris) or any reagent of that system.
  * @param pH pH (activity scale).
  * @param [temperature] Temperature, °C (default 25).
@@ -90,7 +90,7 @@ function FRACTIONS(system: string, pH: number, temperature?: any, ionicStrength?
 /**
  * Every species at equilibrium with its charge, concentration, activity coefficient and activity, then pH, ionic strength, residual, model and any warning.
  * @customfunction SPECIES
- * @helpurl https://localhost:3000/README.md#species
+ * @helpurl https://localhost:3000/help.html#species
  * @param reagents Reagents, one per row.
  * @param amounts Amount of each reagent.
  * @param units Unit of each amount: one cell or one per row.
@@ -106,7 +106,7 @@ function SPECIES(reagents: any[][], amounts: any[][], units: any[][], volume?: a
 /**
  * Every constant the mixture's solve used, with its source: each pKa at the temperature and at the mixture's ionic strength, pKw, A, water density.
  * @customfunction CONSTANTS
- * @helpurl https://localhost:3000/README.md#constants
+ * @helpurl https://localhost:3000/help.html#constants
  * @param reagents Reagents, one per row.
  * @param amounts Amount of each reagent.
  * @param units Unit of each amount: one cell or one per row.
@@ -122,7 +122,7 @@ function CONSTANTS(reagents: any[][], amounts: any[][], units: any[][], volume?:
 /**
  * The mixture's model warnings (activity model out of range, polyborates, a form above its solubility, metal binding), or "none".
  * @customfunction WARNINGS
- * @helpurl https://localhost:3000/README.md#warnings
+ * @helpurl https://localhost:3000/help.html#warnings
  * @param reagents Reagents, one per row.
  * @param amounts Amount of each reagent.
  * @param units Unit of each amount: one cell or one per row.
@@ -138,7 +138,7 @@ function WARNINGS(reagents: any[][], amounts: any[][], units: any[][], volume?: 
 /**
  * Ionic strength at equilibrium, mol/L.
  * @customfunction IONICSTRENGTH
- * @helpurl https://localhost:3000/README.md#ionicstrength
+ * @helpurl https://localhost:3000/help.html#ionicstrength
  * @param reagents Reagents, one per row.
  * @param amounts Amount of each reagent.
  * @param units Unit of each amount: one cell or one per row.
@@ -154,7 +154,7 @@ function IONICSTRENGTH(reagents: any[][], amounts: any[][], units: any[][], volu
 /**
  * Buffer capacity β, mol/(L·pH), water included.
  * @customfunction CAPACITY
- * @helpurl https://localhost:3000/README.md#capacity
+ * @helpurl https://localhost:3000/help.html#capacity
  * @param reagents Reagents, one per row.
  * @param amounts Amount of each reagent.
  * @param units Unit of each amount: one cell or one per row.
@@ -170,7 +170,7 @@ function CAPACITY(reagents: any[][], amounts: any[][], units: any[][], volume?: 
 /**
  * pKa of one step of an acid system at a temperature; with an ionic strength, the apparent (Davies) value.
  * @customfunction PKA
- * @helpurl https://localhost:3000/README.md#pka
+ * @helpurl https://localhost:3000/help.html#pka
  * @param system A system name or any reagent of that system.
  * @param step Step, 1 = first proton lost.
  * @param [temperature] Temperature, °C (default 25).
@@ -184,7 +184,7 @@ function PKA(system: string, step: number, temperature?: any, ionicStrength?: an
 /**
  * Grams of an acid form and a base form to weigh for a buffer of a total concentration at a target pH.
  * @customfunction RECIPE
- * @helpurl https://localhost:3000/README.md#recipe
+ * @helpurl https://localhost:3000/help.html#recipe
  * @param acidForm The acid form, e.g. NaH2PO4·H2O.
  * @param baseForm The base form, e.g. Na2HPO4·7H2O.
  * @param targetPH Target pH (activity scale).
@@ -205,7 +205,7 @@ function RECIPE(acidForm: string, baseForm: string, targetPH: number, concentrat
 /**
  * Molar mass from the IUPAC standard atomic weights, g/mol.
  * @customfunction MOLARMASS
- * @helpurl https://localhost:3000/README.md#molarmass
+ * @helpurl https://localhost:3000/help.html#molarmass
  * @param formula A formula such as Na2HPO4·7H2O, or a catalogue name.
  * @returns Molar mass, g/mol.
  */
@@ -216,7 +216,7 @@ function MOLARMASS(formula: string): number {
 /**
  * The add-in's and the catalogue's versions, for stamping a record.
  * @customfunction VERSION
- * @helpurl https://localhost:3000/README.md#version
+ * @helpurl https://localhost:3000/help.html#version
  * @returns Version text.
  */
 function VERSION(): string {
