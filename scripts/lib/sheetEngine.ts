@@ -157,6 +157,7 @@ export class ProticPlugin extends FunctionPlugin {
     const values = ast.args.map((arg) => literal(arg, state.formulaAddress));
     if (values.some((v) => v === undefined)) {
       const at = state.formulaAddress as { sheet: number; row: number; col: number };
+      // a saved workbook's spill size (its layout fits it); a result that grew since shows as a difference
       return hooks.sizeHint?.(at.sheet, at.row, at.col) ?? entry.fallback ?? [1, 1];
     }
     try {

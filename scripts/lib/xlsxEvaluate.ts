@@ -6,7 +6,7 @@ import type { SheetValue } from './sheetEngine';
 import { a1 } from './xlsxRead';
 import type { SavedCell, SavedWorkbook } from './xlsxRead';
 
-export interface Problem { kind: 'unparseable' | 'circular' | 'external' | 'name' | 'foreign'; where: string; message: string }
+export interface Problem { kind: 'unparseable' | 'circular' | 'external' | 'name' | 'foreign' | 'unsupported'; where: string; message: string }
 
 export interface Evaluated {
   values: SheetValue[][][];
@@ -124,6 +124,9 @@ export function evaluateSaved(book: SavedWorkbook, options: EvaluateOptions = {}
         const where = `${sheet.name}!${a1(cell.row, cell.col)}`;
         if (v.error === '#ERROR!' && /pars/i.test(v.message)) problems.push({ kind: 'unparseable', where, message: `the formula cannot be parsed here: =${cell.saved}` });
         else if (v.error === '#CYCLE!') problems.push({ kind: 'circular', where, message: `circular reference: =${cell.saved}` });
+        else if (v.error === '#NAME?' && !(cell.value && typeof cell.value === 'object' && cell.value.error === '#NAME?') && cell.formula.foreign.length === 0) {
+          problems.push({ kind: 'unsupported', where, message: `${v.message || 'a function or name the engine does not know'}: =${cell.saved}` });
+        }
       }
     }
   });

@@ -7,7 +7,8 @@
 // - functions newer than Excel 2007 carry `_xlfn.` (`_xlfn._xlws.` for some), LET/LAMBDA
 //   parameters `_xlpm.`; `@` (implicit intersection) is saved as `_xlfn.SINGLE(...)` and a
 //   spill reference `B5#` as `_xlfn.ANCHORARRAY(B5)`;
-// - a formula typed by a tool (or our CSV) may hold `PROTIC.PHMIX(...)` as it is typed.
+// - a formula typed by a tool (or our CSV) may hold `PROTIC.PHMIX(...)` as it is typed;
+// - TRUE and FALSE are saved bare; the engine wants TRUE() and FALSE().
 
 /** Splits a formula into code and string-literal pieces so rewrites never touch text in quotes. */
 function mapCode(formula: string, rewrite: (code: string) => string): string {
@@ -73,6 +74,8 @@ export function readFormula(saved: string, spillOf: (ref: string) => string | un
     c = c.replace(/_xlfn\.SINGLE\(/gi, () => { forms.add('_xlfn.SINGLE (implicit intersection @)'); return '('; });
     c = c.replace(/_xlfn\.(_xlws\.)?/gi, () => { forms.add('_xlfn. / _xlws. prefixes'); return ''; });
     c = c.replace(/_xlws\./gi, '').replace(/_xlpm\./gi, () => { forms.add('_xlpm. parameter names'); return ''; });
+    // Excel saves the logical constants bare; the engine reads them as functions
+    c = c.replace(/(^|[^A-Za-z0-9_.!$'])(TRUE|FALSE)(?![A-Za-z0-9_.(!]|\s*\()/gi, (_m, before: string, word: string) => `${before}${word.toUpperCase()}()`);
     if (/\[\d+\]/.test(c)) external = true;
     return c;
   });
