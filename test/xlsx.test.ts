@@ -7,6 +7,7 @@ import { main as sheetMain, runSheet } from '../scripts/sheet';
 import { main as verifyMain } from '../scripts/verify';
 import { readFormula, savedFormula } from '../scripts/lib/xlsxFormula';
 import { verifyFile } from '../scripts/lib/xlsxVerify';
+import { writeExampleWorkbooks } from '../scripts/lib/xlsxExamples';
 import { clearCustomDefinitions } from '../src/engine';
 import { molarMass, ph, pka, recipe, species, fractions, version } from '../src/functions/impl';
 
@@ -250,14 +251,41 @@ describe('bad input: a clear message and exit 2, never a stack trace', () => {
 });
 
 describe('the examples as .xlsx', () => {
+  let written: string[] = [];
+  beforeAll(async () => { written = await writeExampleWorkbooks('examples', join(dir, 'examples')); });
   test.each(readdirSync('examples').filter((f) => f.endsWith('.csv')))('%s → .xlsx → sheet gives the CSV run\'s grid, and verify passes', async (name) => {
-    const out = join(dir, name.replace(/\.csv$/, '.xlsx'));
-    expect((await cli(sheetMain, [join('examples', name), '--out', out])).code).toBe(0);
+    const out = join(dir, 'examples', name.replace(/\.csv$/, '.xlsx'));
+    expect(written).toContain(out);
     const fromXlsx = await cli(sheetMain, [out]);
     expect(fromXlsx.code).toBe(0);
     expect(fromXlsx.out).toBe(runSheet(readFileSync(join('examples', name), 'utf8'), false));
     const v = await cli(verifyMain, [out]);
     expect(v.out).toMatch(/agree [1-9]\d*, differ 0, no saved value 0/);
     expect(v.code).toBe(0);
+  });
+});
+
+describe('sheet --out', () => {
+  test('a CSV written as .xlsx, and a workbook as CSV by sheet name', async () => {
+    const out = join(dir, 'wash.xlsx');
+    expect((await cli(sheetMain, ['examples/wash-buffer.csv', '--out', out])).code).toBe(0);
+    const expected = runSheet(readFileSync('examples/wash-buffer.csv', 'utf8'), false);
+    expect((await cli(sheetMain, [out])).out).toBe(expected);
+    const csv = join(dir, 'wash.csv');
+    expect((await cli(sheetMain, [out, '--sheet', 'wash-buffer', '--out', csv])).code).toBe(0);
+    expect(readFileSync(csv, 'utf8')).toBe(expected);
+    const two = await file('two.xlsx', book());
+    const r = await cli(sheetMain, [two, '--out', join(dir, 'two.csv')]);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/a CSV holds one sheet; name it with --sheet \(sheets: Batch, Review sheet\)/);
+    expect((await cli(sheetMain, [two, '--sheet', 'Nope'])).err).toMatch(/no sheet named "Nope"/);
+  });
+  test('a workbook written back keeps its forms and verifies', async () => {
+    const out = join(dir, 'forms-out.xlsx');
+    expect((await cli(sheetMain, [await file('forms-in.xlsx', book()), '--out', out])).code).toBe(0);
+    const r = await verifyFile(out);
+    expect(r.exitCode).toBe(0);
+    expect(r.forms).toContain('legacy array formula (t="array" ref, no cm)');
+    expect(r.cells.filter((c) => c.spillOf === 'Batch!A10').length + 1).toBe(SPECIES.length * Math.max(...SPECIES.map((row) => row.length)));
   });
 });

@@ -26,7 +26,7 @@ export async function benchXlsx(cells = Number(process.env.PROTIC_BENCH_XLSX_CEL
   const total = (performance.now() - t0) / 1000;
   const cpu = process.cpuUsage(cpu0);
   const cpuSeconds = (cpu.user + cpu.system) / 1e6;
-  const seconds = { ...r.seconds, total };
+  const seconds: Record<string, number> = { ...r.seconds, total };
   const differing = r.cells.filter((c) => c.status !== 'agrees').length;
   const rate = r.cells.length / total;
   const results: XlsxBench = { cells: r.cells.length, fileMiB: statSync(path).size / 1048576, seconds, cellsPerSecond: rate, cellsPerCpuSecond: r.cells.length / cpuSeconds, differing };
