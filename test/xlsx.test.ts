@@ -1,4 +1,5 @@
 import { mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'fs';
+import JSZip from 'jszip';
 import { tmpdir } from 'os';
 import { join } from 'path';
 import { buildXlsx, colName, spillCells } from './xlsxFixtures';
@@ -247,6 +248,10 @@ describe('bad input: a clear message and exit 2, never a stack trace', () => {
     expect(r.out).toMatch(pattern);
     expect(r.out).toMatch(/agree 1, differ 0/);
     expect(r.err + r.out).not.toMatch(/\n\s+at /);
+    const s = await cli(sheetMain, [path]);
+    expect(s.code).toBe(2);
+    expect(s.err).toMatch(/^cannot evaluate /m);
+    expect(Number(s.out.trim().split('\n')[0].split(',')[1])).toBe(phCell.value); // the rest of the grid is still there
   });
 });
 
@@ -287,5 +292,22 @@ describe('sheet --out', () => {
     expect(r.exitCode).toBe(0);
     expect(r.forms).toContain('legacy array formula (t="array" ref, no cm)');
     expect(r.cells.filter((c) => c.spillOf === 'Batch!A10').length + 1).toBe(SPECIES.length * Math.max(...SPECIES.map((row) => row.length)));
+  });
+});
+
+describe('the README worked example', () => {
+  test('is what verify prints for the wash buffer with one saved pH changed by 0.01', async () => {
+    const [wash] = (await writeExampleWorkbooks('examples', join(dir, 'readme'))).filter((p) => p.endsWith('wash-buffer.xlsx'));
+    const zip = await JSZip.loadAsync(readFileSync(wash));
+    const xml = await zip.file('xl/worksheets/sheet1.xml')!.async('string');
+    zip.file('xl/worksheets/sheet1.xml', xml.replace(/(<c r="B10"[^>]*><f>[^<]*<\/f><v>)([^<]*)(<\/v>)/, (_m, a: string, v: string, b: string) => `${a}${Number(v) + 0.01}${b}`));
+    const signed = join(dir, 'readme', 'wash-buffer-signed.xlsx');
+    writeFileSync(signed, await zip.generateAsync({ type: 'nodebuffer' }));
+    const r = await cli(verifyMain, [signed]);
+    expect(r.code).toBe(1);
+    const block = /```text\n\$ npm run verify -- wash-buffer-signed\.xlsx\n([\s\S]*?)```/.exec(readFileSync('README.md', 'utf8'))![1];
+    // numbers and versions follow the catalogue; the wording, the cells and the layout must match
+    const mask = (s: string): string => s.replace(/\d+(\.\d+)*(e-?\d+)?/g, '#');
+    expect(mask(r.out.replace(signed, 'wash-buffer-signed.xlsx'))).toBe(mask(block));
   });
 });
