@@ -15,7 +15,7 @@ import type { Evaluated } from './lib/xlsxEvaluate';
 import { XlsxInputError, readWorkbookFile } from './lib/xlsxRead';
 import type { SavedWorkbook } from './lib/xlsxRead';
 import { writeWorkbookBytes } from './lib/xlsxWrite';
-import { loadCustomSystems } from './lib/xlsxVerify';
+import { SETTINGS_KEY, loadCustomSystems } from './lib/xlsxVerify';
 
 function formatValue(v: SheetValue, messages: boolean): string {
   if (v === null) return '';
@@ -89,7 +89,11 @@ export async function main(argv: string[], out: (s: string) => void = (s) => pro
       return 2;
     }
     if (outPath && /\.xlsx$/i.test(outPath)) {
-      writeFileSync(outPath, await writeWorkbookBytes(toWriteWorkbook(run.book, run.evaluated)));
+      // custom systems from --systems travel with the written workbook, where the pane finds them
+      const systemsFile = value('--systems');
+      const settings = systemsFile !== undefined && !run.book.settings.some((x) => x.name === SETTINGS_KEY)
+        ? [{ name: SETTINGS_KEY, value: JSON.stringify(JSON.stringify(JSON.parse(readFileSync(systemsFile, 'utf8')))) }] : [];
+      writeFileSync(outPath, await writeWorkbookBytes(toWriteWorkbook(run.book, run.evaluated, settings)));
       err(`wrote ${outPath}: ${run.book.sheets.length} sheet(s), formulas with their computed values\n`);
     } else if (outPath) {
       if (sheet === undefined && run.book.sheets.length > 1) {

@@ -53,13 +53,17 @@ function reviewSheet(stamp = version()): RawCell[] {
     { ref: 'B17', f: '_xlfn.IFS(Batch!B7>7,"high",TRUE,"low")', value: PH > 7 ? 'high' : 'low' },
     { ref: 'B18', f: '_xldudf_PROTIC_PKA("phosphate",2,25,B19)', value: pka('phosphate', 2, 25, 0.1) },
     { ref: 'B19', f: 'Batch!B5*0.1', value: 0.1 },
+    { ref: 'B20', f: '_xldudf_PROTIC_PHMIX(Batch!A2:A3,Batch!B2:B3,Batch!C2:C3,SheetVolume)', value: PH },
+    { ref: 'B21', f: '_xldudf_PROTIC_PKA("phosphate",2,25,\'Review sheet\'!B19)', value: pka('phosphate', 2, 25, 0.1) },
+    // a spill whose argument is computed on another sheet: its size is the one saved
+    ...spillCells(22, 1, '_xldudf_PROTIC_FRACTIONS("phosphate",Batch!B7)', fractions('phosphate', PH)),
   ];
 }
 
 function book(over: { ph?: number; species?: RawCell[]; stamp?: string } = {}): RawBook {
   return {
     sheets: [{ name: 'Batch', cells: batchSheet(over) }, { name: 'Review sheet', cells: reviewSheet(over.stamp) }],
-    names: [{ name: 'Volume', text: 'Batch!$B$5' }, { name: 'TargetPH', text: '7.4' }],
+    names: [{ name: 'Volume', text: 'Batch!$B$5' }, { name: 'TargetPH', text: '7.4' }, { name: 'SheetVolume', text: 'Batch!$B$5', localSheetId: 1 }],
     dynamicMetadata: true,
   };
 }
@@ -123,6 +127,11 @@ describe('verify', () => {
     // inputs that are themselves computed are marked
     expect(r.cells.find((c) => c.where === 'Review sheet!B18')!.computedInputs).toEqual(['B19']);
     expect(r.cells.find((c) => c.where === 'Batch!B7')!.computedInputs).toEqual([]);
+    expect(r.cells.find((c) => c.where === 'Review sheet!B20')!.status).toBe('agrees'); // a name scoped to its sheet
+    expect(r.cells.find((c) => c.where === 'Review sheet!B21')!.computedInputs).toEqual(['B19']);
+    const crossSheet = r.cells.filter((c) => c.where === 'Review sheet!B23' || c.spillOf === 'Review sheet!B23');
+    expect(crossSheet.map((c) => c.status)).toEqual(fractions('phosphate', PH)[0].map(() => 'agrees'));
+    expect(crossSheet[0].computedInputs).toEqual(['Batch!B7']);
     expect(r.stamps).toEqual([expect.objectContaining({ where: 'Review sheet!B14', changed: false })]);
   });
 
@@ -202,6 +211,14 @@ describe('verify', () => {
     expect((await cli(verifyMain, [bare])).code).toBe(1);
     clearCustomDefinitions();
     expect((await cli(verifyMain, [bare, '--systems', 'examples/custom-systems.json'])).code).toBe(0);
+    // sheet --systems --out writes them into the workbook's add-in settings, where verify (and the pane) find them
+    clearCustomDefinitions();
+    const carried = join(dir, 'carried.xlsx');
+    expect((await cli(sheetMain, [bare, '--systems', 'examples/custom-systems.json', '--out', carried])).code).toBe(0);
+    clearCustomDefinitions();
+    const v = await cli(verifyMain, [carried]);
+    expect(v.out).toMatch(/1 custom system\(s\) from the workbook/);
+    expect(v.code).toBe(0);
   });
 
   test('progress on stderr for a long workbook', async () => {
