@@ -156,6 +156,9 @@ describe('verify', () => {
     expect(result.cells.filter((c) => c.status !== 'agrees' && c.status !== 'stamp').map((c) => c.where)).toEqual(['Batch!B7']);
     expect(result.cells.find((c) => c.where === 'Batch!B7')!.difference).toBeCloseTo(-0.01, 12);
     expect(r.out).toMatch(/Batch!B7 +=_xldudf_PROTIC_PHMIX\(A2:A3,B2:B3,C2:C3,Volume\) +saved [0-9.]+ +recomputed [0-9.]+ +-1\.000e-2/);
+    // the tolerance is relative: 0.01 in a pH near 6.9 is 0.0015 of it
+    expect((await cli(verifyMain, [path, '--tolerance', '0.002'])).code).toBe(0);
+    expect((await cli(verifyMain, [path, '--tolerance', '0.001'])).code).toBe(1);
   });
 
   test('one cell inside a spilled SPECIES altered: exactly that cell, as part of its spill', async () => {
@@ -209,6 +212,9 @@ describe('verify', () => {
     clearCustomDefinitions();
     const bare = await file('custom-bare.xlsx', { sheets: [{ name: 'S', cells }] });
     expect((await cli(verifyMain, [bare])).code).toBe(1);
+    const unloaded = await file('custom-name.xlsx', { sheets: [{ name: 'S', cells: [{ ...cells[0], value: { error: '#NAME?' } }] }] });
+    expect((await cli(verifyMain, [unloaded, '--systems', 'examples/custom-systems.json'])).out).toMatch(/saved #NAME\? +recomputed 5\.5 .*Excel did not have Protic loaded/);
+    clearCustomDefinitions();
     clearCustomDefinitions();
     expect((await cli(verifyMain, [bare, '--systems', 'examples/custom-systems.json'])).code).toBe(0);
     // sheet --systems --out writes them into the workbook's add-in settings, where verify (and the pane) find them

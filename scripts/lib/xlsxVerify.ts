@@ -85,6 +85,8 @@ function compare(saved: SavedValue, recomputed: SheetValue, tolerance: number, a
     return saved.error === recomputed.error ? { status: 'agrees', difference: null, note: recomputed.message } : { status: 'differs', difference: null, note: recomputed.message };
   }
   if (recomputed && typeof recomputed === 'object') return { status: 'differs', difference: null, note: recomputed.message };
+  if (saved && typeof saved === 'object' && saved.error === '#NAME?') return { status: 'differs', difference: null, note: 'saved as #NAME?: Excel did not have Protic loaded when the workbook was last calculated' };
+  if (saved && typeof saved === 'object' && /^#(BUSY|GETTING_DATA)/.test(saved.error)) return { status: 'differs', difference: null, note: `saved as ${saved.error}: the workbook was saved before the cell finished calculating` };
   return { status: saved === recomputed ? 'agrees' : 'differs', difference: null };
 }
 

@@ -51,7 +51,7 @@ const METADATA = '<?xml version="1.0" encoding="UTF-8" standalone="yes"?>\n'
 function webExtension(settings: { name: string; value: string }[]): string {
   return '<?xml version="1.0" encoding="UTF-8" standalone="yes"?>\n'
     + `<we:webextension xmlns:we="http://schemas.microsoft.com/office/webextensions/webextension/2010/11" id="{${ADDIN_ID.toUpperCase()}}">`
-    + `<we:reference id="${ADDIN_ID}" version="1.0.0.0" store="developer" storeType="uploadfiledevcatalog"/>`
+    + `<we:reference id="${ADDIN_ID}" version="0.1.0.0" store="developer" storeType="uploadfiledevcatalog"/>`
     + '<we:alternateReferences/><we:properties>'
     + settings.map((s) => `<we:property name="${xmlEscape(s.name)}" value="${xmlEscape(s.value)}"/>`).join('')
     + '</we:properties><we:bindings/><we:snapshot xmlns:r="http://schemas.openxmlformats.org/officeDocument/2006/relationships"/></we:webextension>';
