@@ -181,6 +181,18 @@ describe('verify', () => {
     expect(result.spills).toEqual([{ where: 'Batch!A10', saved: `${SPECIES.length - 1}×${cols}`, recomputed: `${SPECIES.length}×${cols}` }]);
   });
 
+  test('a legacy array formula selected larger than its result: the #N/A padding Excel saves agrees', async () => {
+    const padded = [[...FRACTIONS[0], { error: '#N/A' }, { error: '#N/A' }]];
+    const cells = spillCells(0, 0, '_xldudf_PROTIC_FRACTIONS("phosphate",7.2)', padded, false);
+    const result = await verifyFile(await file('legacy-padded.xlsx', { sheets: [{ name: 'S', cells }] }));
+    expect(result.exitCode).toBe(0);
+    expect(result.cells.length).toBe(FRACTIONS[0].length + 2);
+    expect(result.spills).toEqual([]);
+    // the same padding on a dynamic array is not Excel's doing: it differs
+    const dynamic = await verifyFile(await file('dynamic-padded.xlsx', { sheets: [{ name: 'S', cells: spillCells(0, 0, '_xldudf_PROTIC_FRACTIONS("phosphate",7.2)', padded) }], dynamicMetadata: true }));
+    expect(dynamic.exitCode).toBe(1);
+  });
+
   test('a VERSION stamp naming an older catalogue is reported as such', async () => {
     const path = await file('old-stamp.xlsx', book({ stamp: 'Protic 0.1.0; catalogue 2020.1.1' }));
     const r = await cli(verifyMain, [path]);

@@ -175,7 +175,8 @@ export function verifyBook(file: string, book: SavedWorkbook, options: VerifyOpt
     // the whole spilled range: the saved range and the recomputed one, whichever is larger
     const savedShape = cell.spill ?? [1, 1];
     const newShape = shape ?? savedShape;
-    if (savedShape[0] !== newShape[0] || savedShape[1] !== newShape[1]) {
+    const legacyLarger = !cell.dynamic && savedShape[0] >= newShape[0] && savedShape[1] >= newShape[1];
+    if ((savedShape[0] !== newShape[0] || savedShape[1] !== newShape[1]) && !legacyLarger) {
       spills.push({ where: anchor, saved: `${savedShape[0]}×${savedShape[1]}`, recomputed: `${newShape[0]}×${newShape[1]}` });
     }
     const savedAt = new Map<string, SavedValue>();
@@ -193,6 +194,12 @@ export function verifyBook(file: string, book: SavedWorkbook, options: VerifyOpt
         const recomputed = inNew ? values[cell.row + r]?.[cell.col + c] ?? null : null;
         const where = `${sheet.name}!${a1(cell.row + r, cell.col + c)}`;
         const result = compare(saved, recomputed, tolerance, absolute && c > 0);
+        // a legacy array formula fills the part of its range the result does not reach with #N/A
+        const padding = inSaved && !inNew && !cell.dynamic && saved !== null && typeof saved === 'object' && saved.error === '#N/A';
+        if (padding) {
+          cells.push({ where, formula, saved, recomputed, computedInputs, status: 'agrees', difference: null, note: 'legacy array range beyond the result (#N/A)', spillOf: anchor });
+          continue;
+        }
         const note = !inSaved ? 'outside the saved spill' : !inNew ? 'outside the recomputed spill' : result.note;
         cells.push({ where, formula, saved, recomputed, computedInputs, ...result, ...(inSaved && inNew ? {} : { status: isBlank(saved) && isBlank(recomputed) ? 'agrees' : 'differs' }), note, ...(r || c ? { spillOf: anchor } : {}) });
       }
