@@ -314,7 +314,7 @@ export async function readWorkbookFile(path: string, options: ReadOptions = {}):
     bytes = readFileSync(path);
   } catch (e) {
     if (e instanceof XlsxInputError) throw e;
-    throw new XlsxInputError(`${path}: cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+    throw new XlsxInputError(`cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
   return readWorkbookBytes(bytes, options);
 }
