@@ -12,6 +12,7 @@ import { HOSTILE, VALID } from './lib/hostileCases';
 import * as impl from '../src/functions/impl';
 import { benchStock } from './bench/stock';
 import { browserBench } from './bench/browser';
+import { benchXlsx } from './bench/xlsx';
 
 const MIXTURES: Record<string, MixtureRow[]> = {
   'one-system buffer (phosphate)': [
@@ -141,6 +142,7 @@ async function main(): Promise<void> {
   const hostile = slowestHostileCell();
   const stockBench = benchStock();
   const browser = await browserBench();
+  const xlsx = await benchXlsx();
   const meanEvaluations = Object.values(engine).reduce((s, e) => s + e.evaluationsPerSolve, 0) / Object.keys(engine).length;
   const results = {
     date: new Date().toISOString(),
@@ -152,6 +154,7 @@ async function main(): Promise<void> {
     slowestHostileCell: hostile,
     billOfMaterials: stockBench.figures,
     browser: browser.figures,
+    xlsxVerify: xlsx.results,
     targets: {
       evaluationsPerSolveAtMost6: meanEvaluations <= 6,
       solveWithin10Evaluations: Object.values(engine).every((e) => e.solveOverEvaluation <= 10),
@@ -160,6 +163,7 @@ async function main(): Promise<void> {
       hostileCellWithin50ms: hostile.ms <= 50,
       billOfMaterialsWithinHalfSecond: stockBench.figures.seconds <= 0.5,
       ...browser.figures.targets,
+      xlsxVerifyAtLeast2000CellsPerSecond: xlsx.results.cellsPerSecond >= 2000,
     },
   };
   const lines = [
@@ -181,6 +185,8 @@ async function main(): Promise<void> {
     '',
     ...browser.lines,
     '',
+    ...xlsx.lines,
+    '',
     `targets met: ${Object.entries(results.targets).map(([k, v]) => `${k} ${v ? 'yes' : 'NO'}`).join(', ')}`,
   ];
   process.stdout.write(lines.join('\n') + '\n');
@@ -192,4 +198,5 @@ if (process.argv[2] === '--table') {
   process.stdout.write(JSON.stringify(runTable(process.argv[3] as 'ph' | 'ln' | 'ln1', TABLE_ROWS)) + '\n');
 } else {
   main().catch((error) => { process.stderr.write(`${(error as Error).stack ?? error}\n`); process.exit(1); });
+  main().catch((e: Error) => { process.stderr.write(`bench: ${e.message}\n`); process.exitCode = 1; });
 }

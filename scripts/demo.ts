@@ -5,6 +5,7 @@ import { join } from 'path';
 import { parseCsv, typedCell } from './lib/csv';
 import { evaluateSheet } from './lib/sheetEngine';
 import type { SheetValue } from './lib/sheetEngine';
+import { writeExampleWorkbooks } from './lib/xlsxExamples';
 
 function show(v: SheetValue): string {
   if (v === null || v === '') return '';
@@ -33,12 +34,19 @@ export function renderWorkbook(csvText: string): string {
   return lines.join('\n');
 }
 
-function main(): void {
+async function main(): Promise<void> {
   const dir = 'examples';
   const files = readdirSync(dir).filter((f) => f.endsWith('.csv')).sort();
   for (const file of files) {
     process.stdout.write(`\n${file}\n${renderWorkbook(readFileSync(join(dir, file), 'utf8'))}\n`);
   }
+  const workbooks = await writeExampleWorkbooks();
+  process.stdout.write([
+    '',
+    'The same examples as Excel workbooks (formulas with their computed values, generated from the CSV files):',
+    ...workbooks.map((w) => `  ${w}`),
+    'Open them in Excel with Protic sideloaded, or check one outside Excel: npm run verify -- ' + workbooks[0],
+  ].join('\n') + '\n');
   process.stdout.write([
     '',
     'Cautions: a calculated pH does not replace a measurement with a calibrated meter. Handle concentrated acids',
@@ -47,4 +55,4 @@ function main(): void {
   ].join('\n'));
 }
 
-if (require.main === module) main();
+if (require.main === module) main().catch((e: Error) => { process.stderr.write(`demo: ${e.message}\n`); process.exitCode = 1; });

@@ -47,8 +47,18 @@ function spillKey(name: string, values: unknown[]): string {
   return `${name}\u0000${JSON.stringify(values)}`;
 }
 
-/** Raw contents of the sheet being built, so spill sizes can be worked out from typed arguments. */
-let rawGrid: RawCellContent[][] = [];
+/** Raw contents of the sheets being built (by sheet id), so spill sizes can be worked out from typed arguments. */
+let rawGrids: RawCellContent[][][] = [];
+
+/**
+ * What a workbook run may ask of the plugin: a spill size for a call whose arguments are
+ * computed (the size a saved workbook recorded), and notice of each Protic cell evaluated.
+ */
+export interface EvaluationHooks {
+  sizeHint?: (sheet: number, row: number, col: number) => [number, number] | undefined;
+  evaluated?: (name: string, sheet: number, row: number, col: number, shape: [number, number] | undefined) => void;
+}
+let hooks: EvaluationHooks = {};
 
 type Plain = unknown;
 
@@ -72,10 +82,10 @@ function firstError(values: Plain[]): CellError | undefined {
   return undefined;
 }
 
-interface AstLike { type: string; value?: unknown; reference?: { toSimpleCellAddress(base: unknown): { row: number; col: number } }; start?: AstLike['reference']; end?: AstLike['reference']; args?: AstLike[] }
+interface AstLike { type: string; value?: unknown; reference?: { toSimpleCellAddress(base: unknown): { sheet: number; row: number; col: number } }; start?: AstLike['reference']; end?: AstLike['reference']; args?: AstLike[] }
 
-function rawAt(row: number, col: number): unknown {
-  const v = rawGrid[row]?.[col];
+function rawAt(sheet: number, row: number, col: number): unknown {
+  const v = rawGrids[sheet]?.[row]?.[col];
   if (typeof v === 'string' && v.startsWith('=')) return undefined;
   return v === undefined || v === '' ? null : v;
 }
@@ -86,14 +96,14 @@ function literal(ast: AstLike, base: unknown): unknown {
     case 'NUMBER': case 'STRING': return ast.value;
     case 'EMPTY': return null;
     case 'MINUS_UNARY_OP': { const inner = literal(ast.value as AstLike, base); return typeof inner === 'number' ? -inner : undefined; }
-    case 'CELL_REFERENCE': { const a = ast.reference!.toSimpleCellAddress(base); return rawAt(a.row, a.col); }
+    case 'CELL_REFERENCE': { const a = ast.reference!.toSimpleCellAddress(base); return rawAt(a.sheet, a.row, a.col); }
     case 'CELL_RANGE': {
       const s = ast.start!.toSimpleCellAddress(base), e = ast.end!.toSimpleCellAddress(base);
       const out: unknown[][] = [];
       for (let r = s.row; r <= e.row; r++) {
         const row: unknown[] = [];
         for (let c = s.col; c <= e.col; c++) {
-          const v = rawAt(r, c);
+          const v = rawAt(s.sheet, r, c);
           if (v === undefined) return undefined;
           row.push(v);
         }
@@ -129,6 +139,8 @@ export class ProticPlugin extends FunctionPlugin {
         return new CellError(failure.kind === '#N/A' ? ErrorType.NA : ErrorType.VALUE, failure.message);
       }
     }
+    const at = state.formulaAddress as { sheet: number; row: number; col: number };
+    if (hooks.evaluated) hooks.evaluated(name, at.sheet, at.row, at.col, spill ? shapeOf(result) : undefined);
     if (!spill) return result;
     // the size reserved at parse time is on the array vertex; work it out again only without one
     const vertex = state.formulaVertex as { width?: number; height?: number } | undefined;
@@ -145,7 +157,11 @@ export class ProticPlugin extends FunctionPlugin {
   sizeFor(name: string, ast: { args: AstLike[] }, state: { formulaAddress: unknown }): [number, number] {
     const entry = BY_NAME.get(name) as ProticFunction;
     const values = ast.args.map((arg) => literal(arg, state.formulaAddress));
-    if (values.some((v) => v === undefined)) return entry.fallback ?? [1, 1];
+    if (values.some((v) => v === undefined)) {
+      const at = state.formulaAddress as { sheet: number; row: number; col: number };
+      // a saved workbook's spill size (its layout fits it); a result that grew since shows as a difference
+      return hooks.sizeHint?.(at.sheet, at.row, at.col) ?? entry.fallback ?? [1, 1];
+    }
     try {
       const result = entry.fn(...values);
       spillResults.set(spillKey(name, values), result);
@@ -188,17 +204,39 @@ function register(): void {
 
 export type SheetValue = number | string | boolean | null | { error: string; message: string };
 
-/** Builds a sheet from raw cells (formulas as `=...`) and returns its evaluated values. */
-export function evaluateSheet(cells: RawCellContent[][]): SheetValue[][] {
+export function sheetValue(v: unknown): SheetValue {
+  return v instanceof DetailedCellError ? { error: v.value, message: v.message } : (v as SheetValue);
+}
+
+/** A workbook to build: sheets in order (their ids are their positions) and defined names. */
+export interface WorkbookInput {
+  sheets: { name: string; cells: RawCellContent[][] }[];
+  names?: { name: string; expression: string; scope?: number }[];
+}
+
+/**
+ * Builds a workbook (cross-sheet references, defined names), hands the live engine to `use`
+ * and frees it afterwards. Example: `withWorkbook({ sheets: [{ name: 'S', cells: [[1, '=A1*2']] }] }, (hf) => hf.getSheetValues(0))`.
+ */
+export function withWorkbook<T>(book: WorkbookInput, use: (hf: HyperFormula) => T, evaluationHooks: EvaluationHooks = {}): T {
   register();
-  rawGrid = cells;
-  const hf = HyperFormula.buildFromArray(cells, { licenseKey: 'gpl-v3', maxRows: 1_100_000, smartRounding: false, useArrayArithmetic: true });
+  rawGrids = book.sheets.map((s) => s.cells);
+  hooks = evaluationHooks;
+  const sheets: Record<string, RawCellContent[][]> = {};
+  for (const s of book.sheets) sheets[s.name] = s.cells;
+  let hf: HyperFormula | undefined;
   try {
-    const values = hf.getSheetValues(0);
-    return values.map((row) => row.map((v) => (v instanceof DetailedCellError ? { error: v.value, message: v.message } : (v as SheetValue))));
+    hf = HyperFormula.buildFromSheets(sheets, { licenseKey: 'gpl-v3', maxRows: 1_100_000, smartRounding: false, useArrayArithmetic: true }, book.names ?? []);
+    return use(hf);
   } finally {
-    hf.destroy();
-    rawGrid = [];
+    hf?.destroy();
+    rawGrids = [];
+    hooks = {};
     spillResults.clear();
   }
+}
+
+/** Builds a sheet from raw cells (formulas as `=...`) and returns its evaluated values. */
+export function evaluateSheet(cells: RawCellContent[][]): SheetValue[][] {
+  return withWorkbook({ sheets: [{ name: 'Sheet1', cells }] }, (hf) => hf.getSheetValues(0).map((row) => row.map(sheetValue)));
 }
