@@ -1,11 +1,15 @@
 /* global CustomFunctions */
 import * as impl from './impl';
 import { toCellFailure } from './outcome';
+import { ensureWorkbookSystems, workbookSystemsReady } from './workbookSystems';
 
 // The cell functions Excel loads. Each is a thin wrapper over impl.ts; a failure becomes a
 // #VALUE! (bad input) or #N/A (no such result) with one clear message.
 
 function run<T>(compute: () => T): T {
+  // A reopened workbook's custom systems are read before any cell is answered, even before the pane starts;
+  // until Office hands over the document, the cell waits (Excel takes a promise from any function).
+  if (!ensureWorkbookSystems()) return workbookSystemsReady().then(() => run(compute)) as unknown as T;
   try {
     return compute();
   } catch (error) {
