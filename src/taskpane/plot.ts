@@ -2,6 +2,7 @@ import { axisBottom, axisLeft } from 'd3-axis';
 import { scaleLinear } from 'd3-scale';
 import { select } from 'd3-selection';
 import { line } from 'd3-shape';
+import { FONT_PX, LINE_PX, placeMarkLabels } from './chartLabels';
 
 // SVG charts drawn with d3 (scales, shapes, axes); text goes in through .text(), never as markup.
 
@@ -21,30 +22,6 @@ export interface ChartOptions {
 }
 
 const HEIGHT = 220;
-/** Chart text size, px: the Office caption size, drawn 1:1 because the chart is drawn at its container's width. */
-const FONT_PX = 12;
-const LINE_PX = 14;
-
-/** A mark's label and where it goes: a line of its own when it would touch a neighbour. */
-export interface PlacedLabel { x: number; text: string; cls: string; line: number; anchor: 'start' | 'end' }
-
-/**
- * Places vertical marks' labels so none overlaps another: left to right, each label on the first line where it
- * clears every label already there (text width estimated at 0.6 em per character, generous for digits and lower case).
- * A label that would run past the right edge is drawn to the left of its mark.
- */
-export function placeMarkLabels(marks: { x: number; text: string; cls: string }[], plotRight: number, fontPx = FONT_PX): PlacedLabel[] {
-  const lines: [number, number][][] = [];
-  return [...marks].sort((a, b) => a.x - b.x).map((m) => {
-    const width = m.text.length * fontPx * 0.6 + 2;
-    const anchor = m.x + 3 + width > plotRight ? 'end' : 'start';
-    const span: [number, number] = anchor === 'start' ? [m.x + 3, m.x + 3 + width] : [m.x - 3 - width, m.x - 3];
-    let line = lines.findIndex((used) => used.every(([a, b]) => span[1] + 4 <= a || span[0] >= b + 4));
-    if (line < 0) { lines.push([]); line = lines.length - 1; }
-    lines[line].push(span);
-    return { x: m.x, text: m.text, cls: m.cls, line, anchor };
-  });
-}
 
 export function drawChart(container: HTMLElement, series: Series[], options: ChartOptions): void {
   select(container).selectAll('*').remove();
