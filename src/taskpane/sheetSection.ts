@@ -110,7 +110,7 @@ async function insert(): Promise<void> {
   try {
     const build = kind.prepare(inputs);
     const outcome = await writeBlockAtSelection(build, (range, count) => askInPane(byId('insert-question'),
-      `${range} has ${count} cell${count === 1 ? '' : 's'} with content. Replace ${count === 1 ? 'it' : 'them'} with the ${kind.label.toLowerCase()} block?`,
+      `${range} has ${count} cell${count === 1 ? '' : 's'} with content. Replace ${count === 1 ? 'it' : 'them'} with the “${kind.label}” block?`,
       `Replace ${count} cell${count === 1 ? '' : 's'}`, 'Keep my cells'));
     if (outcome.kind === 'cancelled') {
       setStatus(`Nothing written: ${outcome.range} kept as it was. Select an empty area and insert again.`);
