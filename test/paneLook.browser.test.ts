@@ -236,6 +236,8 @@ describe('the pane never loses work', () => {
     const page = await openPane({ settings: { 'protic.customSystems': stored } });
     expect(await page.locator('#custom-list .stored').count()).toBe(2);
     expect(await page.textContent('#custom-list .stored.invalid')).toMatch(/Broken.*Not in use: custom system 2 pKa 1/);
+    expect(await page.isVisible('#custom-name')).toBe(false); // the form starts closed when systems are stored
+    await page.click('#custom-define > summary');
     await page.fill('#custom-name', 'ZORBATE');
     await page.fill('#custom-pka', '4,76');
     await page.click('#custom-save');

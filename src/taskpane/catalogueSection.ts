@@ -89,7 +89,11 @@ export function renderSystem(): void {
   const steps = table('steps', ['Step', `pKa at ${temperatureC} °C`, `pKa′ at ${ionicStrengthText(ionicStrengthM)}`, 'dpKa/dT (K⁻¹)'], view.steps.map((s) => [
     { text: String(s.step) }, { text: s.pKa.toFixed(3), cls: 'num' }, { text: s.apparentPKa.toFixed(3), cls: 'num' }, { text: s.dpKaPerK.toFixed(4), cls: 'num' },
   ]));
-  const sources = el('ol', { class: 'sources', 'aria-label': 'Sources of each step' }, view.steps.map((s) => el('li', {}, [s.source])));
+  // one source for every step is said once
+  const distinct = [...new Set(view.steps.map((s) => s.source))];
+  const sources = distinct.length === 1
+    ? el('p', { class: 'caption sources' }, [`Source, every step: ${distinct[0]}`])
+    : el('ol', { class: 'sources', 'aria-label': 'Sources of each step' }, view.steps.map((s) => el('li', {}, [s.source])));
   const forms = table('forms', ['Form', 'Charge', 'g/mol'], view.forms.map((f) => [
     { text: f.label }, { text: String(f.charge), cls: 'num' }, { text: f.molarMassGPerMol === undefined ? '—' : f.molarMassGPerMol.toFixed(2), cls: 'num' },
   ]));
@@ -98,7 +102,7 @@ export function renderSystem(): void {
   ]));
   panel.append(
     el('p', { class: 'notes' }, [`Data hold for ${view.rangeC[0]}–${view.rangeC[1]} °C. ${view.notes}`]),
-    steps, el('p', { class: 'caption' }, ['Sources, by step:']), sources,
+    steps, ...(distinct.length === 1 ? [] : [el('p', { class: 'caption' }, ['Sources, by step:'])]), sources,
     el('div', { id: 'fractions-chart', class: 'chart' }),
     el('details', {}, [el('summary', {}, [`Forms and reagents (${view.reagents.length})`]), forms, reagents]),
   );

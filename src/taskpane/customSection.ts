@@ -7,6 +7,7 @@ import { failureText, setStatus } from './status';
 
 // The custom-system form and the list of what the workbook stores (each valid or invalid, with its reason).
 
+let firstList = true;
 let settings: () => SettingsLike = () => { throw new Error('no workbook settings'); };
 let changed: () => void = () => undefined;
 
@@ -34,6 +35,9 @@ export function renderStoredList(): void {
     list.append(el('p', { class: 'notes' }, [failureText(error)]));
     return;
   }
+  // the form starts open only in a workbook with nothing stored yet, to keep the pane short
+  if (firstList) byId<HTMLDetailsElement>('custom-define').open = stored.entries.length === 0;
+  firstList = false;
   if (stored.unreadable !== undefined) list.append(el('p', { class: 'invalid' }, [`Stored setting not usable: ${stored.unreadable}.`]));
   if (stored.entries.length === 0 && stored.unreadable === undefined) list.append(el('p', { class: 'notes' }, ['This workbook stores no custom systems yet.']));
   stored.entries.forEach((entry, index) => {
@@ -104,8 +108,8 @@ export function customSection(getSettings: () => SettingsLike, onChange: () => v
   saveButton.addEventListener('click', () => { void save(); });
   return [
     el('div', { id: 'custom-list', class: 'stored-list', 'aria-label': 'Custom systems stored in this workbook' }),
-    el('fieldset', {}, [
-      el('legend', {}, ['Define a system this workbook carries']),
+    el('details', { class: 'define', id: 'custom-define' }, [el('summary', {}, ['Define a new system']), el('fieldset', {}, [
+      el('legend', {}, ['A system this workbook carries']),
       field('custom-name', 'Name', textInput()),
       field('custom-pka', 'pKa values at 25 °C, I = 0 mol/L (first proton lost first)', textInput('', '6.1; 9.2')),
       field('custom-charge', 'Charge of the most protonated form', numberInput('0')),
@@ -116,7 +120,7 @@ export function customSection(getSettings: () => SettingsLike, onChange: () => v
       ])),
       el('p', { class: 'hint' }, ['Decimals take a point or a comma (4,76); separate values with “;” or a space.']),
       saveButton,
-      el('div', { id: 'custom-question' }),
-    ]),
+    ])]),
+    el('div', { id: 'custom-question' }),
   ];
 }

@@ -8,6 +8,12 @@ import { FONT_PX, LINE_PX, placeMarkLabels } from './chartLabels';
 
 export const SERIES_COLOURS = ['#0e7478', '#d9822b', '#5b4b8a', '#7a9e1f', '#b8336a', '#2f6fb0', '#8c6d31'];
 
+/** A series' colour: the theme's (CSS --series-N, lighter in dark), the light one where CSS gives none. */
+function seriesColour(i: number): string {
+  const k = i % SERIES_COLOURS.length;
+  return `var(--series-${k}, ${SERIES_COLOURS[k]})`;
+}
+
 export interface Series { label: string; points: [number, number][] }
 
 export interface ChartOptions {
@@ -52,12 +58,12 @@ export function drawChart(container: HTMLElement, series: Series[], options: Cha
   const path = line<[number, number]>().x((p) => x(p[0])).y((p) => y(p[1]));
   series.forEach((s, i) => {
     svg.append('path').attr('class', options.seriesClass).attr('data-label', s.label).attr('fill', 'none')
-      .attr('stroke', SERIES_COLOURS[i % SERIES_COLOURS.length]).attr('stroke-width', 2).attr('d', path(s.points) ?? '');
+      .style('stroke', seriesColour(i)).attr('stroke-width', 2).attr('d', path(s.points) ?? '');
   });
   const legend = select(container).append('ul').attr('class', 'legend');
   series.forEach((s, i) => {
     const item = legend.append('li');
-    item.append('span').attr('class', 'swatch').style('background', SERIES_COLOURS[i % SERIES_COLOURS.length]);
+    item.append('span').attr('class', 'swatch').style('background', seriesColour(i));
     item.append('span').text(s.label);
   });
 }

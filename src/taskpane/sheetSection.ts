@@ -91,7 +91,7 @@ export function offerForms(names: string[], forms: { acid?: string; base?: strin
     row1.value = acid;
     row2.value = base === acid ? '' : base;
   }
-  byId('use-suggested').textContent = `Use suggested forms${acid ? `: ${acid}${base && base !== acid ? ` + ${base}` : ''}` : ''}`;
+  byId('suggested-text').textContent = acid === '' ? 'No suggestion for the system on show.' : `Suggested for the target pH: ${acid}${base && base !== acid ? ` + ${base}` : ''}.`;
 }
 
 /** The explicit "use suggested forms": replaces reagent rows 1 and 2 and the recipe's forms. */
@@ -158,7 +158,7 @@ export function sheetSection(): HTMLElement[] {
   insertButton.addEventListener('click', () => { void insert(); });
   const previewButton = el('button', { type: 'button', id: 'preview', class: 'secondary' }, ['Preview titration']);
   previewButton.addEventListener('click', previewCurve);
-  const suggest = el('button', { type: 'button', id: 'use-suggested', class: 'secondary' }, ['Use suggested forms']);
+  const suggest = el('button', { type: 'button', id: 'use-suggested', class: 'secondary small' }, ['Use suggested forms']);
   suggest.addEventListener('click', useSuggested);
   const titrant = textInput('1 M NaOH');
   titrant.addEventListener('input', updateTitrantUnit);
@@ -169,8 +169,8 @@ export function sheetSection(): HTMLElement[] {
       ...ROWS.map((i) => reagentRow(i, ['3.40', '3.55', '0'][i - 1], ['g', 'g', 'mM'][i - 1])),
       el('p', { class: 'hint' }, ['Reagent names, formulas or stocks (1 M HCl). Only empty rows are filled from the system on show.']),
     ]),
+    el('div', { class: 'suggestion', 'data-group': 'mixture recipe' }, [el('p', { id: 'suggested-text', class: 'hint' }), suggest]),
     el('div', { 'data-group': 'mixture recipe' }, [field('volume', 'Final volume (L)', numberInput('1'))]),
-    el('div', { 'data-group': 'mixture recipe' }, [suggest]),
     el('div', { 'data-group': 'model' }, [field('model', 'Activity model', model)]),
     el('div', { 'data-group': 'titrant' }, [field('titrant', 'Titrant (a stock such as 1 M NaOH, or a solid)', titrant)]),
     el('div', { class: 'row', 'data-group': 'curve-end points' }, [
@@ -182,7 +182,8 @@ export function sheetSection(): HTMLElement[] {
       field('concentration', 'Buffer concentration, both forms together (mol/L)', numberInput('0.1')),
     ]),
     el('div', { class: 'row', 'data-group': 'fractions' }, [field('from-ph', 'pH from', numberInput('2')), field('to-ph', 'to', numberInput('12')), field('step-ph', 'step', numberInput('0.5'))]),
-    el('p', { class: 'hint', 'data-group': 'fractions recipe' }, ['Uses the system on show above, at the conditions’ temperature and ionic strength.']),
+    el('p', { class: 'hint', 'data-group': 'fractions' }, ['For the system on show above, at the conditions’ temperature and ionic strength.']),
+    el('p', { class: 'hint', 'data-group': 'recipe' }, ['Forms of the system on show above, weighed for the target pH at the conditions’ temperature.']),
     el('div', { class: 'buttons' }, [insertButton, el('span', { 'data-group': 'curve-end' }, [previewButton])]),
     el('div', { id: 'insert-question' }),
     el('div', { id: 'curve-chart', class: 'chart', 'data-group': 'curve-end' }),
