@@ -90,7 +90,7 @@ describe('the side pane in headless Chromium', () => {
     expect(await page.evaluate(() => document.activeElement?.getAttribute('data-system'))).toBe('tris');
     await page.keyboard.press('Enter');
     await page.waitForFunction(() => document.getElementById('system-name')?.textContent === 'Tris');
-    const unlabelled = await page.evaluate(() => Array.from(document.querySelectorAll('input, select'))
+    const unlabelled = await page.evaluate(() => Array.from(document.querySelectorAll('input, select, textarea'))
       .filter((e) => !document.querySelector(`label[for="${e.id}"]`) && !e.closest('label')).map((e) => e.outerHTML));
     expect(unlabelled).toEqual([]);
     await page.close();

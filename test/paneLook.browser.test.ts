@@ -61,10 +61,16 @@ describe('the pane\'s look', () => {
         // nothing wider than the pane
         expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(width);
         // the suggested reagent names fit their boxes (before: "sodium dihyc")
-        for (const id of ['row1-reagent', 'row2-reagent']) {
-          const fit = await page.evaluate((i) => { const e = document.getElementById(i) as HTMLInputElement; return [e.value, e.scrollWidth <= e.clientWidth]; }, id);
+        // the longest catalogue name shows whole: the box wraps and grows instead of scrolling sideways
+        await page.fill('#row3-reagent', 'disodium hydrogen phosphate dodecahydrate');
+        for (const id of ['row1-reagent', 'row2-reagent', 'row3-reagent']) {
+          const fit = await page.evaluate((i) => {
+            const e = document.getElementById(i) as HTMLTextAreaElement;
+            return [e.value, e.scrollWidth <= e.clientWidth && e.scrollHeight <= e.clientHeight + 1];
+          }, id);
           expect(fit).toEqual([expect.stringMatching(/phosphate/), true]);
         }
+        await page.fill('#row3-reagent', '');
         // chart mark labels (pKa1..3, target) never collide, and chart text is at least 12 px on screen
         expect(await overlaps(page, '#fractions-chart text.pka-mark-label, #fractions-chart text.target-mark-label')).toEqual([]);
         expect(await page.locator('#fractions-chart text.target-mark-label').count()).toBe(1);

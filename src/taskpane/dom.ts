@@ -13,7 +13,7 @@ export function el<K extends keyof HTMLElementTagNameMap>(tag: K, attrs: Attrs =
 }
 
 /** A labelled input; `group` names the block fields it belongs to, so only the chosen block's fields show. */
-export function field(id: string, label: string, input: HTMLInputElement | HTMLSelectElement, attrs: Attrs = {}): HTMLElement {
+export function field(id: string, label: string, input: HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement, attrs: Attrs = {}): HTMLElement {
   input.id = id;
   return el('div', { class: 'field', ...attrs }, [el('label', { for: id, id: `${id}-label` }, [label]), input]);
 }
@@ -29,12 +29,39 @@ export function textInput(value = '', placeholder = ''): HTMLInputElement {
   return input;
 }
 
+/** Grows a wrapping text box to its content, so a long name shows whole at 320 px. */
+export function fitHeight(box: HTMLTextAreaElement): void {
+  box.style.height = 'auto';
+  box.style.height = `${box.scrollHeight + 2}px`;
+}
+
+/**
+ * A one-line text box that wraps instead of scrolling sideways (a reagent name of 40 characters shows whole
+ * in a narrow pane); Enter does not add a line, and pasted line breaks become spaces.
+ */
+export function wrappingTextInput(value = ''): HTMLTextAreaElement {
+  const box = el('textarea', { rows: '1', autocomplete: 'off', spellcheck: 'false', class: 'wrapping' }, [value]);
+  box.addEventListener('keydown', (e) => { if (e.key === 'Enter') e.preventDefault(); });
+  box.addEventListener('input', () => {
+    if (/[\r\n]/.test(box.value)) box.value = box.value.replace(/[\r\n]+/g, ' ');
+    fitHeight(box);
+  });
+  return box;
+}
+
+/** Sets a box's text as the user would see it typed (a wrapping box refits its height). */
+export function setText(id: string, value: string): void {
+  const box = byId<HTMLInputElement | HTMLTextAreaElement>(id);
+  box.value = value;
+  if (box instanceof HTMLTextAreaElement) fitHeight(box);
+}
+
 export function byId<T extends HTMLElement = HTMLElement>(id: string): T {
   return document.getElementById(id) as T;
 }
 
 export function str(id: string): string {
-  return byId<HTMLInputElement | HTMLSelectElement>(id).value;
+  return byId<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>(id).value;
 }
 
 /** The visible label of a field, for messages. */

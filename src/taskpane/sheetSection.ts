@@ -3,7 +3,7 @@ import { BLOCK_KINDS, MODEL_CHOICES, blockKind, mixtureArgs, titrantUnitSymbol }
 import type { BlockInputs, FieldGroup } from './blockKinds';
 import type { MixtureInput } from './blocks';
 import { askInPane } from './confirm';
-import { byId, el, field, num, numberInput, str, textInput } from './dom';
+import { byId, el, field, fitHeight, num, numberInput, setText, str, textInput, wrappingTextInput } from './dom';
 import { writeBlockAtSelection } from './excelWriter';
 import { conditions, state } from './paneState';
 import { drawChart } from './plot';
@@ -86,10 +86,9 @@ export function offerForms(names: string[], forms: { acid?: string; base?: strin
     select.replaceChildren(...names.map((n) => el('option', { value: n }, [n])));
     select.value = names.includes(keep) ? keep : pick;
   }
-  const row1 = byId<HTMLInputElement>('row1-reagent'), row2 = byId<HTMLInputElement>('row2-reagent');
-  if (row1.value.trim() === '' && row2.value.trim() === '') {
-    row1.value = acid;
-    row2.value = base === acid ? '' : base;
+  if (str('row1-reagent').trim() === '' && str('row2-reagent').trim() === '') {
+    setText('row1-reagent', acid);
+    setText('row2-reagent', base === acid ? '' : base);
   }
   byId('suggested-text').textContent = acid === '' ? 'No suggestion for the system on show.' : `Suggested for the target pH: ${acid}${base && base !== acid ? ` + ${base}` : ''}.`;
 }
@@ -98,8 +97,8 @@ export function offerForms(names: string[], forms: { acid?: string; base?: strin
 function useSuggested(): void {
   const acid = suggested.acid ?? reagentNames[0] ?? '';
   const base = suggested.base ?? reagentNames[reagentNames.length - 1] ?? '';
-  byId<HTMLInputElement>('row1-reagent').value = acid;
-  byId<HTMLInputElement>('row2-reagent').value = base === acid ? '' : base;
+  setText('row1-reagent', acid);
+  setText('row2-reagent', base === acid ? '' : base);
   byId<HTMLSelectElement>('acid-form').value = acid;
   byId<HTMLSelectElement>('base-form').value = base;
   setStatus(`Reagent rows 1 and 2 and the recipe's forms now hold the suggested ${acid}${base !== acid ? ` and ${base}` : ''}.`);
@@ -151,7 +150,7 @@ export function sheetSection(): HTMLElement[] {
   };
   const model = el('select', {}, MODEL_CHOICES.map((m) => el('option', { value: m.id }, [m.label])));
   const reagentRow = (i: number, amount: string, unit: string): HTMLElement => el('div', { class: 'reagent-row', role: 'group', 'aria-label': `Reagent ${i}` }, [
-    field(`row${i}-reagent`, `Reagent ${i}`, textInput(), { class: 'field reagent' }),
+    field(`row${i}-reagent`, `Reagent ${i}`, wrappingTextInput(), { class: 'field reagent' }),
     el('div', { class: 'row' }, [field(`row${i}-amount`, 'Amount', numberInput(amount)), field(`row${i}-unit`, 'Unit', unitSelect(unit))]),
   ]);
   const insertButton = el('button', { type: 'button', id: 'insert' }, ['Insert at selected cell']);
@@ -193,5 +192,6 @@ export function sheetSection(): HTMLElement[] {
 
 export function startSheetSection(): void {
   showFieldsOf(str('formula-kind'));
+  for (const i of ROWS) fitHeight(byId<HTMLTextAreaElement>(`row${i}-reagent`));
   updateTitrantUnit();
 }
