@@ -195,6 +195,29 @@ describe('the pane never loses work', () => {
     await page.close();
   }, 60000);
 
+  test('a second Insert while the pane is asking answers the first "no": one question, one write', async () => {
+    const page = await openPane({ sheet: { '1,1': 'mine' } });
+    await page.click('#insert');
+    await page.waitForSelector('#insert-question [role="alertdialog"]');
+    await page.click('#insert');
+    await page.waitForFunction(() => document.querySelectorAll('#insert-question [role="alertdialog"]').length === 1);
+    await page.click('#insert-question [data-answer="yes"]');
+    await page.waitForFunction(() => /^Wrote B2:D9 \(replaced 1 cell, as you agreed\)/.test(document.getElementById('status')?.textContent ?? ''));
+    expect(await page.evaluate(() => (window as unknown as Win).__writes.length)).toBe(1);
+    await page.close();
+  }, 60000);
+
+  test('"use suggested forms" for the recipe changes its form lists, not the hidden reagent rows', async () => {
+    const page = await openPane();
+    await page.fill('#row1-reagent', 'citric acid monohydrate');
+    await page.selectOption('#formula-kind', 'recipe');
+    await page.selectOption('#acid-form', 'phosphoric acid');
+    await page.click('#use-suggested');
+    expect(await page.inputValue('#acid-form')).toBe('sodium dihydrogen phosphate');
+    expect(await page.inputValue('#row1-reagent')).toBe('citric acid monohydrate');
+    await page.close();
+  }, 60000);
+
   test('a blank number box is refused with a message and nothing is written', async () => {
     const page = await openPane();
     await page.fill('#temperature', '');

@@ -93,29 +93,42 @@ export function offerForms(names: string[], forms: { acid?: string; base?: strin
   byId('suggested-text').textContent = acid === '' ? 'No suggestion for the system on show.' : `Suggested for the target pH: ${acid}${base && base !== acid ? ` + ${base}` : ''}.`;
 }
 
-/** The explicit "use suggested forms": replaces reagent rows 1 and 2 and the recipe's forms. */
+/**
+ * The explicit "use suggested forms": for the recipe, its two form lists; otherwise reagent rows 1 and 2 (the
+ * fields on show, never hidden ones the user cannot see change).
+ */
 function useSuggested(): void {
   const acid = suggested.acid ?? reagentNames[0] ?? '';
   const base = suggested.base ?? reagentNames[reagentNames.length - 1] ?? '';
+  const both = `${acid}${base !== acid ? ` and ${base}` : ''}`;
+  if (blockKind(str('formula-kind')).fields.includes('recipe')) {
+    byId<HTMLSelectElement>('acid-form').value = acid;
+    byId<HTMLSelectElement>('base-form').value = base;
+    setStatus(`The recipe's acid and base forms are now the suggested ${both}.`);
+    return;
+  }
   setText('row1-reagent', acid);
   setText('row2-reagent', base === acid ? '' : base);
-  byId<HTMLSelectElement>('acid-form').value = acid;
-  byId<HTMLSelectElement>('base-form').value = base;
-  setStatus(`Reagent rows 1 and 2 and the recipe's forms now hold the suggested ${acid}${base !== acid ? ` and ${base}` : ''}.`);
+  setStatus(`Reagent rows 1 and 2 now hold the suggested ${both}.`);
 }
+
+/** Counts Insert clicks: a question answered "no" by a newer Insert leaves the status to the newer one. */
+let insertCount = 0;
 
 async function insert(): Promise<void> {
   const kind = blockKind(str('formula-kind'));
+  const mine = ++insertCount;
   try {
     const build = kind.prepare(inputs);
     const outcome = await writeBlockAtSelection(build, (range, count) => askInPane(byId('insert-question'),
       `${range} has ${count} cell${count === 1 ? '' : 's'} with content. Replace ${count === 1 ? 'it' : 'them'} with the “${kind.label}” block?`,
       `Replace ${count} cell${count === 1 ? '' : 's'}`, 'Keep my cells'));
     if (outcome.kind === 'cancelled') {
+      if (mine !== insertCount) return;
       setStatus(`Nothing written: ${outcome.range} kept as it was. Select an empty area and insert again.`);
       return;
     }
-    const message = `Wrote ${outcome.range}${outcome.replaced > 0 ? ` (replaced ${outcome.replaced} cells, as you agreed)` : ''}.`;
+    const message = `Wrote ${outcome.range}${outcome.replaced > 0 ? ` (replaced ${outcome.replaced} cell${outcome.replaced === 1 ? '' : 's'}, as you agreed)` : ''}.`;
     if (kind.showsMixtureWarning) setResultStatus(message);
     else setStatus(message);
   } catch (error) {
