@@ -4,6 +4,7 @@ import {
   MAX_TABLE_ROWS, WHAT_IF_TEMPERATURES_C, curveBlock, fractionsBlock, fractionsRowCount, phBlock, recipeBlock, speciesBlock, temperatureTableBlock, titrantBlock,
 } from './blocks';
 import type { Block, MixtureInput } from './blocks';
+import { Refusal } from './refusal';
 
 // The blocks the pane writes, as one table: adding a block is one entry here, adding an activity model
 // one entry in MODEL_CHOICES. Each entry names the fields it needs (the pane shows only those) and checks
@@ -62,7 +63,7 @@ export function titrantUnitSymbol(titrant: string): string {
 }
 
 function wholeNumber(value: number, label: string, lo: number, hi: number): number {
-  if (!Number.isInteger(value) || value < lo || value > hi) throw new Error(`${label}: ${value} is not a whole number from ${lo} to ${hi}.`);
+  if (!Number.isInteger(value) || value < lo || value > hi) throw new Refusal(`${label}: ${value} is not a whole number from ${lo} to ${hi}.`);
   return value;
 }
 
@@ -114,7 +115,7 @@ export const BLOCK_KINDS: BlockKind[] = [
     prepare(inputs) {
       const [fromPH, toPH, stepPH, temperatureC, ionicStrengthM] = [inputs.fromPH(), inputs.toPH(), inputs.stepPH(), inputs.temperatureC(), inputs.ionicStrengthM()];
       const count = fractionsRowCount(fromPH, toPH, stepPH);
-      if (typeof count === 'string') throw new Error(`Fractions table: ${count}. Nothing was written.`);
+      if (typeof count === 'string') throw new Refusal(`Fractions table: ${count}. Nothing was written.`);
       const sys = systemFor(inputs.systemId());
       impl.fractions(sys.id, fromPH, temperatureC, ionicStrengthM);
       impl.fractions(sys.id, toPH, temperatureC, ionicStrengthM);

@@ -1,3 +1,5 @@
+import { Refusal } from './refusal';
+
 // Labelled blocks the pane writes into the sheet at the selected cell: inputs in cells and a
 // formula that references them, so a reviewer sees every number the result depends on.
 
@@ -172,7 +174,7 @@ export function fractionsRowCount(fromPH: number, toPH: number, stepPH: number):
 
 export function fractionsBlock(f: FractionsInput, top: number, left: number): Block {
   const count = fractionsRowCount(f.fromPH, f.toPH, f.stepPH);
-  if (typeof count === 'string') throw new Error(`Fractions table: ${count}.`);
+  if (typeof count === 'string') throw new Refusal(`Fractions table: ${count}.`);
   const rows: (BlockCell | null)[][] = [['pH', ...f.forms.map(text)]];
   for (let i = 0; i < count; i++) {
     const r = top + 1 + i;

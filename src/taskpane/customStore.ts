@@ -3,6 +3,7 @@ import type { CustomSystemDefinition } from '../engine';
 import { SETTINGS_KEY, loadWorkbookSystems, readStoredSystems, registerStoredSystems } from '../functions/workbookSystems';
 import type { SettingsLike, StoredSystems } from '../functions/workbookSystems';
 import { parseNumberList, parseStrictNumber } from './numbers';
+import { Refusal } from './refusal';
 
 // Custom systems travel with the workbook in its document settings, as our own JSON. Nothing stored is
 // dropped or replaced without the user's say-so: the pane asks, then calls these with `confirmed`.
@@ -70,7 +71,7 @@ export interface CustomInputs { name: string; pKa: string; charge: string; dH: s
  * ("4,76"); values are separated by ";", spaces, or a comma followed by a space. Blank required boxes are refused.
  */
 export function definitionFromInputs(inputs: CustomInputs): CustomSystemDefinition {
-  if (inputs.name.trim() === '') throw new Error('Name is blank: give the system a name.');
+  if (inputs.name.trim() === '') throw new Refusal('Name is blank: give the system a name.');
   const def: CustomSystemDefinition = {
     name: inputs.name.trim(),
     pKa: parseNumberList(inputs.pKa, 'pKa values'),

@@ -1,6 +1,7 @@
 /* global Excel */
 import { address } from './blocks';
 import type { Block } from './blocks';
+import { Refusal } from './refusal';
 
 // Writes a block at the selected cell without losing work: the whole block range (its spills' room
 // included) is read first, and cells that hold anything are replaced only when the user says so.
@@ -30,8 +31,8 @@ export async function writeBlockAtSelection(build: (top: number, left: number) =
     await context.sync();
     const block = build(selected.rowIndex, selected.columnIndex);
     const rows = block.cells.length, cols = Math.max(0, ...block.cells.map((r) => r.length));
-    if (rows === 0 || cols === 0) throw new Error('Nothing to write.');
-    if (rows * cols > MAX_BLOCK_CELLS) throw new Error(`That block would be ${rows} × ${cols} cells, more than ${MAX_BLOCK_CELLS}; nothing was written.`);
+    if (rows === 0 || cols === 0) throw new Refusal('Nothing to write.');
+    if (rows * cols > MAX_BLOCK_CELLS) throw new Refusal(`That block would be ${rows} × ${cols} cells, more than ${MAX_BLOCK_CELLS}; nothing was written.`);
     if (block.cells.some((r) => r.length !== cols)) throw new Error('internal error: a block row of the wrong width; nothing was written.');
     const range = `${address(selected.rowIndex, selected.columnIndex)}:${address(selected.rowIndex + rows - 1, selected.columnIndex + cols - 1)}`;
     const target = selected.worksheet.getRangeByIndexes(selected.rowIndex, selected.columnIndex, rows, cols);
@@ -44,7 +45,7 @@ export async function writeBlockAtSelection(build: (top: number, left: number) =
       // the sheet may have changed while the user decided: write only over what they saw
       target.load('formulas');
       await context.sync();
-      if (!sameContents(before, target.formulas as unknown[][])) throw new Error(`${range} changed while the pane was asking; nothing was written. Insert again.`);
+      if (!sameContents(before, target.formulas as unknown[][])) throw new Refusal(`${range} changed while the pane was asking; nothing was written. Insert again.`);
       // the user agreed to replace these cells, spills' room included, so a spill is not blocked by old contents
       target.clear('Contents');
     }

@@ -1,3 +1,5 @@
+import { Refusal } from './refusal';
+
 // Numbers typed into the pane: a blank box is refused (never read as 0) and a decimal comma is accepted.
 
 /** The user's decimal separator, from the browser's locale ('.' where none can be found). */
@@ -16,16 +18,16 @@ export function localeDecimalSeparator(locale?: string): string {
  */
 export function parseStrictNumber(text: string, label: string, decimalSeparator = localeDecimalSeparator()): number {
   const t = text.trim().replace(/[\u2212\u2013]/g, '-');
-  if (t === '') throw new Error(`${label} is blank: enter a number.`);
+  if (t === '') throw new Refusal(`${label} is blank: enter a number.`);
   let normalised = t;
   if (t.includes(',')) {
-    if (t.includes('.') || (t.match(/,/g) ?? []).length > 1) throw new Error(`${label}: “${text.trim()}” mixes separators; write one decimal separator and no thousands separator.`);
-    if (decimalSeparator !== ',' && /^-?\d{1,3},\d{3}$/.test(t)) throw new Error(`${label}: “${text.trim()}” could be a thousand or a decimal; write it without the comma, or with a point.`);
+    if (t.includes('.') || (t.match(/,/g) ?? []).length > 1) throw new Refusal(`${label}: “${text.trim()}” mixes separators; write one decimal separator and no thousands separator.`);
+    if (decimalSeparator !== ',' && /^-?\d{1,3},\d{3}$/.test(t)) throw new Refusal(`${label}: “${text.trim()}” could be a thousand or a decimal; write it without the comma, or with a point.`);
     normalised = t.replace(',', '.');
   }
-  if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(normalised)) throw new Error(`${label}: “${text.trim()}” is not a number.`);
+  if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(normalised)) throw new Refusal(`${label}: “${text.trim()}” is not a number.`);
   const value = Number(normalised);
-  if (!Number.isFinite(value)) throw new Error(`${label}: “${text.trim()}” is not a finite number.`);
+  if (!Number.isFinite(value)) throw new Refusal(`${label}: “${text.trim()}” is not a finite number.`);
   return value;
 }
 
@@ -36,7 +38,7 @@ export function parseStrictNumber(text: string, label: string, decimalSeparator 
  */
 export function parseNumberList(text: string, label: string): number[] {
   const trimmed = text.trim();
-  if (trimmed === '') throw new Error(`${label}: blank; enter at least one number.`);
+  if (trimmed === '') throw new Refusal(`${label}: blank; enter at least one number.`);
   const tokens = trimmed.split(/;|,\s+|\s+/).filter((x) => x !== '');
   // a token like "6.1,9.2" has a point, so its comma separates two values
   const values = tokens.flatMap((tok) => (tok.includes('.') && tok.includes(',') ? tok.split(',') : [tok])).filter((x) => x !== '');

@@ -8,6 +8,7 @@ import { writeBlockAtSelection } from './excelWriter';
 import { conditions, state } from './paneState';
 import { drawChart } from './plot';
 import { failureText, setStatus } from './status';
+import { Refusal } from './refusal';
 
 // "Into the sheet": the chosen block's fields, Insert (which asks before replacing anything) and the titration preview.
 
@@ -18,7 +19,7 @@ function mixtureInput(): MixtureInput {
   const rows = ROWS
     .filter((i) => str(`row${i}-reagent`).trim() !== '')
     .map((i) => ({ reagent: str(`row${i}-reagent`).trim(), amount: num(`row${i}-amount`), unit: str(`row${i}-unit`) }));
-  if (rows.length === 0) throw new Error('No reagent: type at least one reagent name, formula or stock.');
+  if (rows.length === 0) throw new Refusal('No reagent: type at least one reagent name, formula or stock.');
   return { rows, volumeL: num('volume'), temperatureC: conditions().temperatureC, model: str('model') };
 }
 
@@ -26,7 +27,7 @@ const inputs: BlockInputs = {
   mixture: mixtureInput,
   volumeL: () => num('volume'),
   model: () => str('model'),
-  titrant: () => { const t = str('titrant').trim(); if (t === '') throw new Error('Titrant is blank: type a stock such as 1 M NaOH.'); return t; },
+  titrant: () => { const t = str('titrant').trim(); if (t === '') throw new Refusal('Titrant is blank: type a stock such as 1 M NaOH.'); return t; },
   targetPH: () => conditions().targetPH,
   temperatureC: () => conditions().temperatureC,
   ionicStrengthM: () => conditions().ionicStrengthM,
