@@ -50,10 +50,11 @@ describe('the side pane in headless Chromium', () => {
     await page.click('#insert');
     await page.waitForFunction(() => (window as unknown as { __writes: unknown[] }).__writes.length === 1);
     const writes = await page.evaluate(() => (window as unknown as { __writes: { at: number[]; formulas: unknown[][] }[] }).__writes);
-    expect(writes[0].at).toEqual([1, 1, 7, 3]);
+    expect(writes[0].at).toEqual([1, 1, 8, 3]);
     expect(writes[0].formulas[0]).toEqual(['Reagent', 'Amount', 'Unit']);
-    expect(writes[0].formulas[5][1]).toBe('=PROTIC.PHMIX(B3:B4,C3:C4,D3:D4,C5,C6)');
+    expect(writes[0].formulas[6][1]).toBe('=PROTIC.PHMIX(B3:B4,C3:C4,D3:D4,C5,C6,C7)');
 
+    await page.selectOption('#formula-kind', 'titrant');
     await page.click('#preview');
     expect(await page.locator('#curve-chart path.curve').count()).toBe(1);
 
@@ -89,7 +90,7 @@ describe('the side pane in headless Chromium', () => {
     expect(await page.evaluate(() => document.activeElement?.getAttribute('data-system'))).toBe('tris');
     await page.keyboard.press('Enter');
     await page.waitForFunction(() => document.getElementById('system-name')?.textContent === 'Tris');
-    const unlabelled = await page.evaluate(() => Array.from(document.querySelectorAll('input, select'))
+    const unlabelled = await page.evaluate(() => Array.from(document.querySelectorAll('input, select, textarea'))
       .filter((e) => !document.querySelector(`label[for="${e.id}"]`) && !e.closest('label')).map((e) => e.outerHTML));
     expect(unlabelled).toEqual([]);
     await page.close();
@@ -100,11 +101,12 @@ describe('the side pane in headless Chromium', () => {
     await page.fill('#row1-reagent', 'borax decahydrate');
     await page.fill('#row1-amount', '4.77'); // 0.0125 mol in 1 L: 0.05 mol/L boron
     await page.fill('#row2-reagent', '');
+    await page.selectOption('#formula-kind', 'curve');
     await page.fill('#titrant', '1 M HCl');
     await page.click('#preview');
     const status = await page.textContent('#status');
     expect(status).toMatch(/^Preview: pH 9\.\d\d to \d\.\d\d\.\nWarning: borate total 0\.0500 mol\/L is above 0\.025 mol\/L: polyborate/);
-    expect(await page.getAttribute('#status', 'class')).toBe('status error');
+    expect(await page.getAttribute('#status', 'class')).toBe('status warning');
     expect(await page.textContent('#curve-chart')).toContain('titrant added (mL)');
     await page.close();
   }, 60000);
@@ -117,12 +119,16 @@ describe('the side pane in headless Chromium', () => {
     await page.waitForFunction(() => (window as unknown as Writes).__writes.length === 1);
     await page.selectOption('#formula-kind', 'temperatures');
     await page.click('#insert');
+    // the second block lands on the first: the pane asks before replacing anything
+    await page.waitForSelector('#insert-question [data-answer="yes"]');
+    expect(await page.textContent('#insert-question')).toMatch(/^B2:D\d+ has \d+ cells with content\. Replace them/);
+    await page.click('#insert-question [data-answer="yes"]');
     await page.waitForFunction(() => (window as unknown as Writes).__writes.length === 2);
     const writes = await page.evaluate(() => (window as unknown as Writes).__writes);
-    expect(writes[0].formulas[5][0]).toBe('=PROTIC.SPECIES(B3:B4,C3:C4,D3:D4,C5,C6)');
+    expect(writes[0].formulas[6][0]).toBe('=PROTIC.SPECIES(B3:B4,C3:C4,D3:D4,C5,C6,C7)');
     expect(writes[0].at[3]).toBe(5);
-    expect(writes[1].formulas[4]).toEqual(['Temperature (°C)', 'pH', 'Warnings']);
-    expect(writes[1].formulas[5]).toEqual([4, '=PROTIC.PHMIX(B3:B4,C3:C4,D3:D4,C5,B7)', '=PROTIC.WARNINGS(B3:B4,C3:C4,D3:D4,C5,B7)']);
+    expect(writes[1].formulas[5]).toEqual(['Temperature (°C)', 'pH', 'Warnings']);
+    expect(writes[1].formulas[6]).toEqual([4, '=PROTIC.PHMIX(B3:B4,C3:C4,D3:D4,C5,B8,C6)', '=PROTIC.WARNINGS(B3:B4,C3:C4,D3:D4,C5,B8,C6)']);
     expect(await page.textContent('#status')).toMatch(/^Wrote B2:D/);
     await page.close();
   }, 60000);
@@ -132,6 +138,8 @@ describe('the side pane in headless Chromium', () => {
     const { page, dialogs } = await openPane({ 'protic.customSystems': hostile });
     const status = await page.textContent('#status');
     expect(status).toMatch(/rejected from the workbook: custom system 1 name: value not usable/);
+    // still stored, shown as not in use with its reason, as text
+    expect(await page.textContent('#custom-list')).toMatch(/Not in use: custom system 1 name: value not usable/);
     expect(await page.evaluate(() => (window as unknown as { __pwned?: number }).__pwned)).toBeUndefined();
     expect(await page.locator('img').count()).toBe(0);
     expect(dialogs).toEqual([]);

@@ -17,8 +17,8 @@ describe('the bundled examples', () => {
 
 describe('model validity', () => {
   test.each([
-    ['davies', 0.8, /above the davies model's range \(about 0.5 mol\/kg\)/],
-    ['bates-guggenheim', 0.3, /above the bates-guggenheim model's range \(about 0.1 mol\/kg\)/],
+    ['davies', 0.8, /above the Davies model's range \(about 0.5 mol\/kg\)/],
+    ['bates-guggenheim', 0.3, /above the Bates–Guggenheim model's range \(about 0.1 mol\/kg\)/],
   ])('SPECIES warns above the %s range but still returns a number', (model, nacl, pattern) => {
     const table = species([['KH2PO4'], ['Na2HPO4'], ['NaCl']], [[0.025], [0.025], [nacl]], 'M', null, 25, model);
     const warning = table.find((r) => r[0] === 'warning') as (string | number)[];

@@ -112,7 +112,7 @@ describe('cell functions in HyperFormula', () => {
     const v = evaluateSheet(rows);
     expect(v.map((row) => typeof row[1])).toEqual(['number', 'number', 'number', 'number', 'number']);
     // Davies holds to about 0.5 mol/kg (README); the buffer alone gives I = 0.10 mol/L, each row adds its NaCl.
-    expect(v.map((row) => (row[2] === 'none' ? 'none' : /above the davies model's range/.test(String(row[2])) ? 'range' : row[2])))
+    expect(v.map((row) => (row[2] === 'none' ? 'none' : /above the Davies model's range/.test(String(row[2])) ? 'range' : row[2])))
       .toEqual(['none', 'none', 'none', 'range', 'range']);
   });
 

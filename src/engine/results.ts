@@ -41,6 +41,9 @@ function supDigits(digits: string): string {
   return digits.split('').map((d) => map[d] ?? d).join('');
 }
 
+/** Activity models as they are published (Davies 1938; Bates and Guggenheim 1960), for warning prose. */
+const MODEL_DISPLAY_NAMES: Record<string, string> = { davies: 'Davies', 'bates-guggenheim': 'Bates–Guggenheim', ideal: 'ideal' };
+
 const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scale: 0, ionicStrengthM: 0 };
 
 /**
@@ -69,7 +72,7 @@ export function modelWarning(eq: Equilibrium): string {
   const limit = MODEL_LIMIT_MOLAL[p.model];
   const ionicMolal = eq.ionicStrengthM / Math.exp(p.lnWaterDensity);
   if (p.model !== 'ideal' && ionicMolal > limit) {
-    warnings.push(`ionic strength ${ionicMolal.toPrecision(3)} mol/kg is above the ${p.model} model's range (about ${limit} mol/kg): treat the pH as an estimate`);
+    warnings.push(`ionic strength ${ionicMolal.toPrecision(3)} mol/kg is above the ${MODEL_DISPLAY_NAMES[p.model] ?? p.model} model's range (about ${limit} mol/kg): treat the pH as an estimate`);
   }
   if (p.model === 'ideal' && ionicMolal > 0.001) {
     warnings.push(`ideal model at ionic strength ${ionicMolal.toPrecision(3)} mol/kg: activity corrections are ignored`);

@@ -2,11 +2,15 @@
 import * as impl from './impl';
 import { toCellFailure } from './outcome';
 import { stock } from './stock';
+import { ensureWorkbookSystems, workbookSystemsReady } from './workbookSystems';
 
 // The cell functions Excel loads. Each is a thin wrapper over impl.ts; a failure becomes a
 // #VALUE! (bad input) or #N/A (no such result) with one clear message.
 
 function run<T>(compute: () => T): T {
+  // A reopened workbook's custom systems are read before any cell is answered, even before the pane starts;
+  // until Office hands over the document, the cell waits (Excel takes a promise from any function).
+  if (!ensureWorkbookSystems()) return workbookSystemsReady().then(() => run(compute)) as unknown as T;
   try {
     return compute();
   } catch (error) {
@@ -226,7 +230,7 @@ function VERSION(): string {
 /**
  * A made solution as one text cell (name, what went in, to what volume, and its exact composition), usable wherever a reagent is, dispensed by volume.
  * @customfunction STOCK
- * @helpurl https://localhost:3000/README.md#stock
+ * @helpurl https://localhost:3000/help.html#stock
  * @param reagents Reagents of the stock, one per row (names, formulas, stocks, or other STOCK cells).
  * @param amounts Amount of each reagent.
  * @param units Unit of each amount: one cell or one per row.
