@@ -211,7 +211,9 @@ describe('manifest/manifest.xml', () => {
     [/\bOffice\.addin\./, 'SharedRuntime', 1.1],
     [/\bgetUsedRangeOrNullObject\(/, 'ExcelApi', 1.4],
     [/\bgetSpill(ingToRange|Parent)\w*\(/, 'ExcelApi', 1.12],
-    [/\bapplication\.calculate\(/, 'ExcelApi', 1.8],
+    // Application.calculate is ExcelApi 1.1 (platform reference, Excel.Application); setting calculationMode needs 1.8
+    [/\bapplication\.calculate\(/, 'ExcelApi', 1.1],
+    [/\bcalculationMode\s*=[^=]/, 'ExcelApi', 1.8],
     [/\bonChanged\b/, 'ExcelApi', 1.7],
   ];
 
