@@ -51,7 +51,8 @@ describe('the cell functions agree with one another', () => {
 describe('CONSTANTS: what the solve used, with sources', () => {
   test.each([25, 37])('each pKa at T, and at the mixture\'s own ionic strength as PKA gives it, at %d °C', (t) => {
     const table = impl.constants(R, A, U, 1, t) as (string | number)[][];
-    expect(table[0]).toEqual(['constant', 'step', 'at this temperature, I = 0', 'at this ionic strength', 'source']);
+    expect(table[0]).toEqual(['constant', 'step', 'at this temperature, I = 0', 'at this ionic strength', 'source',
+      'ΔrH° (kJ/mol)', 'ΔrCp° (J/(K·mol))', 'data range (°C)', 'provenance', 'alternative pKa (25 °C)', 'pH with the alternative − pH']);
     const I = impl.ionicStrength(R, A, U, 1, t);
     const phosphate = table.filter((r) => r[0] === 'pKa phosphate');
     expect(phosphate.map((r) => r[1])).toEqual([1, 2, 3]);

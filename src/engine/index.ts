@@ -32,3 +32,4 @@ export { WATER_RANGE_C, WATER_SOURCES, checkWaterRange, debyeHuckelA, pKw, water
 export { applyCustomDefinitions, clearCustomDefinitions } from './customSystems';
 export type { CustomFormDefinition, CustomSystemDefinition } from './customSystems';
 export { apparentPKas, fractionsAtPH } from './apparent';
+export { pHWithStepPKa, withStepPKa } from './alternative';
