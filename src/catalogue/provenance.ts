@@ -3,7 +3,7 @@ import type { AcidStep, Provenance, ProvenanceLevel, StepProvenance } from './ty
 // Builders and labels for the provenance of catalogue constants (see ProvenanceLevel in types.ts).
 
 export const recalled = (source: string): Provenance => ({ level: 'recalled', source });
-export const checked = (source: string, where: string): Provenance => ({ level: 'checked', source, where });
+export const checked = (source: string, where: string, pKaPlusMinus?: number): Provenance => ({ level: 'checked', source, where, ...(pKaPlusMinus === undefined ? {} : { pKaPlusMinus }) });
 export const practice = (source = 'common practice'): Provenance => ({ level: 'common practice', source });
 
 /** The level as a reviewer reads it: "checked (abstract, fitted pK(T))", "recalled, not checked", … */

@@ -63,9 +63,9 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     // checked: Bénézeth et al. 1997, abstract, 25 °C values (log K −3.127, −4.759, −6.397; ΔrH° 4.1, 2.2, −3.6 kJ/mol;
     // ΔrCp° −162 ± 7, −192 ± 15, −231 ± 7 J/(K·mol)); step 1's ΔrCp° (recalled −131) changed to the source's −162.
     steps: [
-      step(3.128, 4.07, -162, all(checked(BENEZETH_1997, 'abstract, 25 °C: log K1a −3.127 ± 0.002, ΔH 4.1 ± 0.2 kJ/mol, ΔCp −162 ± 7 J/(K·mol)'))),
-      step(4.761, 2.23, -178, all(checked(BENEZETH_1997, 'abstract, 25 °C: log K2a −4.759 ± 0.001, ΔH 2.2 ± 0.1 kJ/mol, ΔCp −192 ± 15 J/(K·mol)'))),
-      step(6.396, -3.38, -254, all(checked(BENEZETH_1997, 'abstract, 25 °C: log K3a −6.397 ± 0.002, ΔH −3.6 ± 0.2 kJ/mol, ΔCp −231 ± 7 J/(K·mol)'))),
+      step(3.128, 4.07, -162, all(checked(BENEZETH_1997, 'abstract, 25 °C: log K1a −3.127 ± 0.002, ΔH 4.1 ± 0.2 kJ/mol, ΔCp −162 ± 7 J/(K·mol)', 0.002))),
+      step(4.761, 2.23, -178, all(checked(BENEZETH_1997, 'abstract, 25 °C: log K2a −4.759 ± 0.001, ΔH 2.2 ± 0.1 kJ/mol, ΔCp −192 ± 15 J/(K·mol)', 0.001))),
+      step(6.396, -3.38, -254, all(checked(BENEZETH_1997, 'abstract, 25 °C: log K3a −6.397 ± 0.002, ΔH −3.6 ± 0.2 kJ/mol, ΔCp −231 ± 7 J/(K·mol)', 0.002))),
     ],
     temperatureRangeC: RANGE_GKL,
     bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'citrate binds Ca²⁺ and Mg²⁺, releasing protons, which the model leaves out: the pH reads high', source: 'common practice' },
@@ -157,8 +157,8 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     // checked: Kettler et al. 1995, abstract, 25 °C: log K1a −4.210 ± 0.003, ΔH 2.9 ± 0.2, ΔCp −98 ± 3; log K2a
     // −5.638 ± 0.001, ΔH −0.5 ± 0.1, ΔCp −215 ± 8: all within the checked bounds, so unchanged.
     steps: [
-      step(4.207, 3.0, -121, all(checked(KETTLER_1995, 'abstract, 25 °C: log K1a −4.210 ± 0.003, ΔH 2.9 ± 0.2 kJ/mol, ΔCp −98 ± 3 J/(K·mol)'))),
-      step(5.636, -0.5, -217, all(checked(KETTLER_1995, 'abstract, 25 °C: log K2a −5.638 ± 0.001, ΔH −0.5 ± 0.1 kJ/mol, ΔCp −215 ± 8 J/(K·mol)'))),
+      step(4.207, 3.0, -121, all(checked(KETTLER_1995, 'abstract, 25 °C: log K1a −4.210 ± 0.003, ΔH 2.9 ± 0.2 kJ/mol, ΔCp −98 ± 3 J/(K·mol)', 0.003))),
+      step(5.636, -0.5, -217, all(checked(KETTLER_1995, 'abstract, 25 °C: log K2a −5.638 ± 0.001, ΔH −0.5 ± 0.1 kJ/mol, ΔCp −215 ± 8 J/(K·mol)', 0.001))),
     ],
     temperatureRangeC: RANGE_GKL,
   },
@@ -183,7 +183,7 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     steps: [
       step(1.92, 1.1, -21, { alternative: { pKa: 2.038, rule: KEEP_COMPILATION,
         provenance: checked('primary acidity constant of maleic acid at 298.2 K by conductance and e.m.f. (BITS Pilani repository, handle 123456789/18980)',
-          'abstract: pK 2.038 ± 0.008 with ion-size parameter 5 Å, "significantly higher than that generally accepted"') } }),
+          'abstract: pK 2.038 ± 0.008 with ion-size parameter 5 Å, "significantly higher than that generally accepted"', 0.008) } }),
       step(6.27, -3.6, -314),
     ],
     temperatureRangeC: RANGE_GKL,
@@ -196,7 +196,7 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
       step(-3, undefined, undefined, { pKa: practice('common practice: the first step is complete; pKa −3 keeps it so down to pH −1') }),
       step(1.987, -22.4, -258, { alternative: { pKa: 1.947, rule: KEEP_COMPILATION,
         provenance: checked('J. Chem. Soc., Faraday Trans. 1, 1973, 69, 94 (e.m.f. of Pt,H2 | Na2SO4, NaHSO4, NaCl | AgCl | Ag)',
-          'abstract: K2 = 0.0113 ± 0.0005 mol/kg at 25 °C, pK 1.947 ± 0.02') } }),
+          'abstract: K2 = 0.0113 ± 0.0005 mol/kg at 25 °C, pK 1.947 ± 0.02', 0.02) } }),
     ],
     temperatureRangeC: RANGE_GKL,
   },
@@ -218,14 +218,14 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
   good('mes', 'MES', 'C6H13NO4S', 6.27, 14.8, 5, 0, { pKa: checked(`${VEGA_BATES_1976}; ${ROY_1997_JSC}`, 'abstracts, pK2 at 25 °C: 6.270 and 6.269') }),
   good('mops', 'MOPS', 'C7H15NO4S', 7.184, 21.1, 25),
   good('pipes', 'PIPES', 'C8H17N2O6S2', 7.141, 11.2, 22, -1),
-  good('aces', 'ACES', 'C4H10N2O4S', 6.847, 30.43, -49, 0, all(checked(ROY_1997_JCED, 'abstract, fitted pK2(T), 5–55 °C, at 298.15 K: 6.847, 30.43 kJ/mol, −62 J/(K·mol)'))),
+  good('aces', 'ACES', 'C4H10N2O4S', 6.847, 30.43, -49, 0, all(checked(ROY_1997_JCED, 'abstract, fitted pK2(T), 5–55 °C, at 298.15 K: 6.847, 30.43 kJ/mol, −62 J/(K·mol); fit standard deviation 0.00058', 0.00058))),
   good('tes', 'TES', 'C6H15NO6S', 7.55, 32.13, 0, 0, { pKa: checked(`${VEGA_BATES_1976}; ${ROY_1997_JSC}`, 'abstracts, pK2 at 25 °C: 7.550 in both') }),
   good('bicine', 'bicine', 'C6H13NO4', 8.334, 26.34, 0),
   good('tricine', 'tricine', 'C6H13NO5', 8.135, 31.37, -53),
   // TAPS: recalled 8.44, 40.4, 15 changed to Roy et al. 2006 (abstract: pK2 8.502 ± 0.0007 at 298.15 K; the fit
   // pK2 = 2969.61/T − 17.05052 + 2.73697 ln T gives ΔrH° 41.23 kJ/mol and ΔrCp° −52.4 J/(K·mol)).
-  good('taps', 'TAPS', 'C7H17NO6S', 8.502, 41.23, -52.4, 0, all(checked(ROY_2006, 'abstract: pK2 8.502 ± 0.0007 at 298.15 K; fitted pK2(T), 5–55 °C, at 298.15 K: 41.23 kJ/mol, −52.4 J/(K·mol)'))),
-  good('ches', 'CHES', 'C8H17NO3S', 9.394, 39.55, 9, 0, all(checked(ROY_1997_JCED, 'abstract, fitted pK2(T), 5–55 °C, at 298.15 K: 9.394, 39.55 kJ/mol, 9.5 J/(K·mol)'))),
+  good('taps', 'TAPS', 'C7H17NO6S', 8.502, 41.23, -52.4, 0, all(checked(ROY_2006, 'abstract: pK2 8.502 ± 0.0007 at 298.15 K; fitted pK2(T), 5–55 °C, at 298.15 K: 41.23 kJ/mol, −52.4 J/(K·mol)', 0.0007))),
+  good('ches', 'CHES', 'C8H17NO3S', 9.394, 39.55, 9, 0, all(checked(ROY_1997_JCED, 'abstract, fitted pK2(T), 5–55 °C, at 298.15 K: 9.394, 39.55 kJ/mol, 9.5 J/(K·mol); fit standard deviation 0.00097', 0.00097))),
   // CAPS: the fit pK2 = 1046.64/T + 35.10191 − 4.9342 ln T (Roy et al. 1997, abstract) gives 10.499, 48.20 kJ/mol and
   // ΔrCp° 94.5 J/(K·mol) at 298.15 K: the recalled ΔrCp° 57 changed.
   good('caps', 'CAPS', 'C9H19NO3S', 10.499, 48.1, 94.5, 0, all(checked(ROY_1997_JCT, 'abstract, fitted pK2(T), 5–55 °C, at 298.15 K: 10.499, 48.20 kJ/mol, 94.5 J/(K·mol)'))),

@@ -17,6 +17,8 @@ export interface Provenance {
   source: string;
   /** for `checked`: where in the source the value was read (e.g. "abstract, fitted pK(T) at 298.15 K") */
   where?: string;
+  /** the ± the source states for a pKa (its standard uncertainty or the fit's standard deviation), pKa units */
+  pKaPlusMinus?: number;
 }
 
 /** The provenance of each constant of a step; null where the catalogue has no value for it. */
