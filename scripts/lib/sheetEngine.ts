@@ -4,6 +4,9 @@
 import { ArraySize, CellError, DetailedCellError, EmptyValue, ErrorType, FunctionArgumentType, FunctionPlugin, HyperFormula, SimpleRangeValue } from 'hyperformula';
 import type { RawCellContent } from 'hyperformula';
 import * as impl from '../../src/functions/impl';
+import { uncertainty } from '../../src/functions/uncertainty';
+import { readback } from '../../src/functions/readback';
+import { handcheck } from '../../src/functions/handcheck';
 import { toCellFailure } from '../../src/functions/outcome';
 
 type Impl = (...args: unknown[]) => unknown;
@@ -22,7 +25,7 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 2] },
   { name: 'FRACTIONS', fn: impl.fractions as Impl, arity: [2, 4], fallback: [1, 7] },
   { name: 'SPECIES', fn: impl.species as Impl, arity: [3, 6], fallback: [40, 5] },
-  { name: 'CONSTANTS', fn: impl.constants as Impl, arity: [3, 6], fallback: [30, 5] },
+  { name: 'CONSTANTS', fn: impl.constants as Impl, arity: [3, 6], fallback: [30, 11] },
   { name: 'WARNINGS', fn: impl.warnings as Impl, arity: [3, 6] },
   { name: 'IONICSTRENGTH', fn: impl.ionicStrength as Impl, arity: [3, 6] },
   { name: 'CAPACITY', fn: impl.capacity as Impl, arity: [3, 6] },
@@ -30,9 +33,12 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'RECIPE', fn: impl.recipe as Impl, arity: [5, 10], fallback: [2, 2] },
   { name: 'MOLARMASS', fn: impl.molarMass as Impl, arity: [1, 1] },
   { name: 'VERSION', fn: impl.version as Impl, arity: [0, 0] },
+  { name: 'UNCERTAINTY', fn: uncertainty as Impl, arity: [4, 9], fallback: [40, 9] },
+  { name: 'READBACK', fn: readback as Impl, arity: [3, 5], fallback: [20, 9] },
+  { name: 'HANDCHECK', fn: handcheck as Impl, arity: [3, 6], fallback: [20, 4] },
 ];
 
-const SPILLS = new Set(['CURVE', 'FRACTIONS', 'SPECIES', 'CONSTANTS', 'RECIPE']);
+const SPILLS = new Set(['CURVE', 'FRACTIONS', 'SPECIES', 'CONSTANTS', 'RECIPE', 'UNCERTAINTY', 'READBACK', 'HANDCHECK']);
 const BY_NAME = new Map(PROTIC_FUNCTIONS.map((f) => [f.name, f] as [string, ProticFunction]));
 
 /**

@@ -33,3 +33,6 @@ export { applyCustomDefinitions, clearCustomDefinitions } from './customSystems'
 export type { CustomFormDefinition, CustomSystemDefinition } from './customSystems';
 export { apparentPKas, fractionsAtPH } from './apparent';
 export { pHWithStepPKa, withStepPKa } from './alternative';
+export { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
+export { LADDER_EFFECTS, handLadder } from './handcheck';
+export type { HandLadder } from './handcheck';
