@@ -88,3 +88,39 @@ describe('UNCERTAINTY: one input', () => {
     expect(Math.hypot(...contributions)).toBeCloseTo(u, 12);
   });
 });
+
+describe('UNCERTAINTY: each implicit sensitivity against a central difference of the full solve', () => {
+  // The code under test never differences the solve; here the solve is re-run at x ± h as an independent check.
+  const solvePH = (reagents: string[], amounts: number[], units: string[], volumeL: number, temperatureC: number, shift?: (p: ReturnType<typeof prepareProblem>) => void) => {
+    const rows: MixtureRow[] = reagents.map((reagent, i) => ({ reagent, amount: amounts[i], unit: units[i], row: i + 1 }));
+    const problem = prepareProblem(buildContents(rows, volumeL), temperatureC, 'davies');
+    shift?.(problem);
+    return solve(problem).pH;
+  };
+  test.each(CASES)('%s', (...c) => {
+    const [, reagents, amounts, units, volumeL, temperatureC, amountTol] = c;
+    const b = uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), volumeL, temperatureC, null, amountTol.map((t) => [t]), 0, 0);
+    const close = (analytic: number, numeric: number) => expect(Math.abs(analytic - numeric)).toBeLessThan(1e-5 * Math.max(1, Math.abs(numeric)) + 1e-7);
+    amounts.forEach((a, i) => {
+      const h = a * 1e-5;
+      const up = [...amounts]; up[i] = a + h;
+      const down = [...amounts]; down[i] = a - h;
+      close(b.lines[i].sensitivity, (solvePH(reagents, up, units, volumeL, temperatureC) - solvePH(reagents, down, units, volumeL, temperatureC)) / (2 * h));
+    });
+    const vLine = b.lines.find((l) => l.input === 'final volume')!;
+    const hv = volumeL * 1e-5;
+    close(vLine.sensitivity, (solvePH(reagents, amounts, units, volumeL + hv, temperatureC) - solvePH(reagents, amounts, units, volumeL - hv, temperatureC)) / (2 * hv));
+    const tLine = b.lines.find((l) => l.input === 'temperature')!;
+    close(tLine.sensitivity, (solvePH(reagents, amounts, units, volumeL, temperatureC + 0.01) - solvePH(reagents, amounts, units, volumeL, temperatureC - 0.01)) / 0.02);
+    const pKaLines = b.lines.filter((l) => l.input.startsWith('pKa '));
+    let n = 0;
+    const problem = prepareProblem(buildContents(reagents.map((reagent, i) => ({ reagent, amount: amounts[i], unit: units[i], row: i + 1 })), volumeL), temperatureC, 'davies');
+    problem.systems.forEach((s, i) => s.system.steps.forEach((_, k) => {
+      const shifted = (d: number) => solvePH(reagents, amounts, units, volumeL, temperatureC, (p) => shiftConstants(p, p.systems.map((_, j) => (j === i ? s.system.steps.map((__, m) => (m === k ? d : 0)) : [])), 0));
+      close(pKaLines[n++].sensitivity, (shifted(1e-4) - shifted(-1e-4)) / 2e-4);
+    }));
+    const w = b.lines.find((l) => l.input === 'pKw')!;
+    const kw = (d: number) => solvePH(reagents, amounts, units, volumeL, temperatureC, (p) => shiftConstants(p, [], d));
+    close(w.sensitivity, (kw(1e-4) - kw(-1e-4)) / 2e-4);
+  });
+});

@@ -4,7 +4,7 @@ import type { Problem } from './problem';
 import type { Equilibrium, JointJacobian } from './solver';
 import { jointJacobian, lnGammaZ2For } from './solver';
 import { dpKaPerK } from './temperature';
-import { pKw } from './water';
+import { debyeHuckelA, pKw, waterDensityKgPerL } from './water';
 
 // Sensitivities of the pH to its inputs by implicit differentiation of the solved system
 // F(y, L; θ) = (charge balance, L − g(I)) = 0 at the solution: d(y, L)/dθ = −J⁻¹ ∂F/∂θ, with J the solver's own
@@ -12,8 +12,11 @@ import { pKw } from './water';
 
 const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scale: 0, ionicStrengthM: 0 };
 
-/** ∂F/∂θ of one parameter: the charge balance's (mol/L) and the ionic strength's (mol/L); F2's follows from it. */
-interface Partial { df: number; dI: number }
+/**
+ * ∂F/∂θ of one parameter: the charge balance's (mol/L) and the ionic strength's (mol/L), from which F2's follows;
+ * `dF2` adds a direct term of F2 (for A and ρw), `dpH` a direct term of the pH (for ρw).
+ */
+interface Partial { df: number; dI: number; dF2?: number; dpH?: number }
 
 /** Moments of one system's forms at the solution, for the partial derivatives of F. */
 interface Moments { alpha: Float64Array; meanJ: number; meanZ2: number }
@@ -51,10 +54,32 @@ export class PHSensitivity {
 
   /** dpH/dθ from the parameter's partial derivatives of the charge balance and of the ionic strength. */
   dpH(part: Partial): number {
-    const dF1 = part.df, dF2 = -this.dg * part.dI;
+    const dF1 = part.df, dF2 = -this.dg * part.dI + (part.dF2 ?? 0);
     const dy = -(this.a11 * dF1 + this.a12 * dF2);
     const dL = -(this.a21 * dF1 + this.a22 * dF2);
-    return -(dy + dL) / Math.LN10;
+    return -(dy + dL) / Math.LN10 + (part.dpH ?? 0);
+  }
+
+  /** dpH per unit of ln ρw: every cumulative constant moves by j·ln ρw, Kw by 2 ln ρw, g(I) through I/ρw, pH directly. */
+  perLnWaterDensity(): number {
+    const p = this.eq.problem;
+    let df = -2 * this.ohM, dI = this.ohM;
+    p.systems.forEach((s, i) => {
+      const m = this.moments[i], c = p.totalsM[i];
+      let jj = 0, jz = 0;
+      m.alpha.forEach((a, j) => { jj += a * j * j; jz += a * j * (s.z0 - j) ** 2; });
+      df -= c * (jj - m.meanJ * m.meanJ);
+      dI += (c / 2) * (jz - m.meanJ * m.meanZ2);
+    });
+    // g = −A ln10 F(I/ρw): at fixed I, ∂g/∂ln ρw = −dg·I with dg = ∂g/∂I (per mol/L), so ∂F2/∂ln ρw = dg·I
+    return this.dpH({ df, dI, dF2: this.dg * this.eq.ionicStrengthM, dpH: 1 / Math.LN10 });
+  }
+
+  /** dpH per unit of the Debye–Hückel A: F2 = L − g with g proportional to A. */
+  perDebyeHuckelA(): number {
+    const p = this.eq.problem;
+    const g = lnGammaZ2For(p, this.eq.ionicStrengthM);
+    return this.dpH({ df: 0, dI: 0, dF2: p.debyeHuckelA > 0 ? -g / p.debyeHuckelA : 0 }); // ∂F2/∂A = −∂g/∂A = −g/A
   }
 
   /** dpH per mol/L of system i's total. */
@@ -84,12 +109,16 @@ export class PHSensitivity {
   }
 
   /**
-   * dpH per kelvin, through each pKa (dpKa/dT from its ΔrH° and ΔrCp°) and pKw (the slope of the IAPWS formula,
-   * a derivative of an explicit function). The smaller changes of A and ρw with temperature are left out.
+   * dpH per kelvin, through each pKa (dpKa/dT from its ΔrH° and ΔrCp°), pKw, the Debye–Hückel A and the water
+   * density; the slopes of the explicit water formulas (IAPWS pKw, A, Kell density) by a central difference of those
+   * formulas, the solve's own sensitivity implicit.
    */
   perKelvin(): number {
-    const p = this.eq.problem, t = p.temperatureC;
-    let total = this.perPKw() * (pKw(t + 0.005) - pKw(t - 0.005)) / 0.01;
+    const p = this.eq.problem, t = p.temperatureC, h = 0.005;
+    const slope = (fn: (x: number) => number): number => (fn(t + h) - fn(t - h)) / (2 * h);
+    let total = this.perPKw() * slope(pKw)
+      + this.perDebyeHuckelA() * slope(debyeHuckelA)
+      + this.perLnWaterDensity() * slope((x) => Math.log(waterDensityKgPerL(x)));
     p.systems.forEach((s, i) => {
       if (p.totalsM[i] <= 0) return;
       s.system.steps.forEach((step, k) => { total += this.perPKa(i, k) * dpKaPerK(step, t); });
