@@ -37,6 +37,8 @@ const ROY_1997_JCT = 'Roy et al. 1997, J. Chem. Thermodyn. 29, 749';
 const ROY_2006 = 'Roy et al. 2006, J. Chem. Thermodyn. 38, 413';
 const VEGA_BATES_1976 = 'Vega & Bates 1976, Anal. Chem. 48, 1293';
 const BENEZETH_1997 = 'Bénézeth, Palmer & Wesolowski 1997, J. Solution Chem. 26, 63';
+const BATES_1951 = 'Bates 1951, J. Res. NBS 47, 127';
+const TRIS_1987 = 'Acid association quotients of Tris in aqueous NaCl media to 200 °C, J. Solution Chem. 16 (7), 1987 (OSTI 6977699)';
 const KETTLER_1995 = 'Kettler, Wesolowski & Palmer 1995, J. Solution Chem. 24 (1)';
 
 // Where the compilation and a primary study disagree beyond their uncertainties, the step keeps the compilation's
@@ -52,7 +54,13 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     id: 'phosphate', name: 'phosphate', aliases: ['phosphoric acid', 'orthophosphate'],
     chargeMostProtonated: 0, formulaMostProtonated: 'H3PO4',
     forms: ['H3PO4', 'H2PO4⁻', 'HPO4²⁻', 'PO4³⁻'],
-    steps: [step(2.148, -8.0, -141), step(7.198, 3.6, -230), step(12.35, 16.0, -242)],
+    // step 1 checked: Bates 1951 (abstract, −log K1 = 799.31/T − 4.5535 + 0.013486·T, 0–60 °C, ± 0.005; the
+    // abstract's scan garbles two digits, read against the recalled coefficients): at 298.15 K 2.148, ΔrH° −7.65
+    // kJ/mol, ΔrCp° −154 J/(K·mol), all within the checked bounds.
+    steps: [
+      step(2.148, -8.0, -141, all(checked(BATES_1951, 'abstract, fitted −log K1(T), 0–60 °C, at 298.15 K: 2.148, −7.65 kJ/mol, −154 J/(K·mol); stated accuracy ± 0.005', 0.005))),
+      step(7.198, 3.6, -230), step(12.35, 16.0, -242),
+    ],
     temperatureRangeC: RANGE_GKL,
     bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'CaHPO4 and MgHPO4 ion pairs and calcium phosphate precipitation are not modelled', source: 'common practice' },
   },
@@ -211,7 +219,10 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     id: 'tris', name: 'Tris', aliases: ['trometamol', 'tromethamine', 'THAM', 'tris(hydroxymethyl)aminomethane'],
     chargeMostProtonated: 1, formulaMostProtonated: 'C4H12NO3',
     forms: ['TrisH⁺', 'Tris'],
-    steps: [step(8.072, 47.45, -59)],
+    // ΔrH° and ΔrCp° checked: the Oak Ridge study (abstract) gives for the association Tris + H⁺ at 25 °C, I = 0,
+    // ΔH −47.53 ± 0.13 kJ/mol and ΔCp 67 ± 13 J/(K·mol); its log K there (8.701) does not match any Tris pKa and
+    // was not used, so the pKa stays recalled.
+    steps: [step(8.072, 47.45, -59, { dH: checked(TRIS_1987, 'abstract: association ΔH −47.53 ± 0.13 kJ/mol at 25 °C'), dCp: checked(TRIS_1987, 'abstract: association ΔCp 67 ± 13 J/(K·mol) at 25 °C') })],
     temperatureRangeC: RANGE_GKL,
   },
   good('hepes', 'HEPES', 'C8H18N2O4S', 7.564, 20.4, 47, 0, { pKa: checked(VEGA_BATES_1976, 'abstract, pK2 at 25 °C: 7.565') }),
