@@ -207,6 +207,7 @@ describe('catalogue view', () => {
     expect(v.steps[1].apparentPKa).toBeLessThan(v.steps[1].pKa);
     expect(v.forms.map((f) => f.label)).toEqual(['H3PO4', 'H2PO4⁻', 'HPO4²⁻', 'PO4³⁻']);
     expect(v.forms[0].molarMassGPerMol).toBeCloseTo(97.995, 2);
-    expect(v.steps[0].source).toMatch(/Goldberg/);
+    expect(v.steps[0].source).toMatch(/^Bates 1951.*checked/); // step 1 checked in its primary source
+    expect(v.steps[1].source).toMatch(/Goldberg/);
   });
 });
