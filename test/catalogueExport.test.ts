@@ -13,7 +13,7 @@ describe('npm run catalogue: every value with its source, as CSV', () => {
     // the provenance level of each constant, appended after the original columns
     expect(header.slice(12)).toEqual(['pKa provenance', 'ΔrH° provenance', 'ΔrCp° provenance', 'measured range (°C)', 'alternative pKa', 'alternative source and rule']);
     const taps = rows.find((r) => r[1] === 'TAPS')!;
-    expect(taps[12]).toMatch(/^checked \(abstract/);
+    expect(taps[12]).toMatch(/^checked: abstract/);
     expect(rows.find((r) => r[1] === 'acetate')![12]).toBe('recalled, not checked');
     expect(rows.find((r) => r[1] === 'EDTA')![15]).toBe('5–45');
     expect(rows.find((r) => r[1] === 'maleate' && r[2] === '1')![16]).toBe('2.038');

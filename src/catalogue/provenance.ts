@@ -6,7 +6,7 @@ export const recalled = (source: string): Provenance => ({ level: 'recalled', so
 export const checked = (source: string, where: string, pKaPlusMinus?: number): Provenance => ({ level: 'checked', source, where, ...(pKaPlusMinus === undefined ? {} : { pKaPlusMinus }) });
 export const practice = (source = 'common practice'): Provenance => ({ level: 'common practice', source });
 
-/** The level as a reviewer reads it: "checked (abstract, fitted pK(T))", "recalled, not checked", … */
+/** The level as a reviewer reads it: "checked: abstract, fitted pK(T) …", "recalled, not checked", … */
 export function levelLabel(p: Provenance | null): string {
   if (!p) return 'no value';
   return levelText(p.level, p.where);
@@ -14,7 +14,7 @@ export function levelLabel(p: Provenance | null): string {
 
 export function levelText(level: ProvenanceLevel, where?: string): string {
   switch (level) {
-    case 'checked': return where ? `checked (${where})` : 'checked';
+    case 'checked': return where ? `checked: ${where}` : 'checked';
     case 'recalled': return 'recalled, not checked';
     case 'common practice': return 'common practice';
     case 'user': return 'user-defined';
