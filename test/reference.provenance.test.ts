@@ -38,6 +38,8 @@ describe('changed and checked constants against their primary sources', () => {
     ['mes', 1, 6.269, 0.003, 'Roy et al. 1997, J. Solution Chem. 26, 1209, abstract: 6.269'],
     ['tes', 1, 7.550, 0.003, 'Roy et al. 1997, J. Solution Chem. 26, 1209, abstract: 7.550'],
     ['hepes', 1, 7.565, 0.003, 'Vega & Bates 1976, Anal. Chem. 48, 1293, abstract: 7.565'],
+    ['oxalate', 1, 1.277, 0.010, 'Kettler et al. 1991, J. Solution Chem. 20, abstract: log K1a −1.277 ± 0.010'],
+    ['tartrate', 2, 4.36, 0.02, 'J. Chem. Soc., Dalton Trans. 1994, 2729, abstract: log β1 4.36 ± 0.02'],
     ['phosphate', 1, 799.31 / 298.15 - 4.5535 + 0.013486 * 298.15, 0.003, 'Bates 1951, J. Res. NBS 47, 127, abstract: fitted −log K1(T)'],
     // MOPS: the abstract prints 7.18 ± 0.001 at 25 °C (a digit lost) and 7.044 ± 0.002 at 37 °C: within 0.005, not
     // the 0.003 of a check, so MOPS stays recalled; a ΔrH° about 1 kJ/mol lower would meet both
@@ -59,6 +61,7 @@ describe('changed and checked constants against their primary sources', () => {
     ['carbonate', 2, 14.90, -290.5, 'Plummer & Busenberg 1982 log K2(T) at 298.15 K'],
     ['carbonate', 1, 9.11, -366.7, 'Plummer & Busenberg 1982 log K1(T) at 298.15 K'],
     ['phosphate', 1, -7.65, -154, 'Bates 1951 fit at 298.15 K'],
+    ['oxalate', 1, -4.1, -168, 'Kettler et al. 1991, abstract: ΔH −4.1 ± 1.1, ΔCp −168 ± 41'],
     ['tris', 1, 47.53, -67, 'J. Solution Chem. 16 (7) 1987 (OSTI 6977699), abstract: association ΔH −47.53 ± 0.13, ΔCp 67 ± 13'],
   ] as const)('%s step %d: ΔrH° %d kJ/mol, ΔrCp° %d J/(K·mol) (%s)', (id, k, dH, dCp, _source) => {
     const s = step(id, k - 1);
@@ -101,10 +104,10 @@ describe('provenance on every constant', () => {
     const count = (pick: (l: ProvenanceLevel) => boolean) => ACID_SYSTEMS.flatMap((s) => s.steps.flatMap(stepProvenances)).filter((p) => pick(p.level)).length;
     const pKas = ACID_SYSTEMS.flatMap((s) => s.steps.map((st) => st.provenance.pKa.level));
     expect(pKas).toHaveLength(49);
-    expect(pKas.filter((l) => l === 'checked')).toHaveLength(16);
-    expect(pKas.filter((l) => l === 'recalled')).toHaveLength(32);
+    expect(pKas.filter((l) => l === 'checked')).toHaveLength(18);
+    expect(pKas.filter((l) => l === 'recalled')).toHaveLength(30);
     expect(pKas.filter((l) => l === 'common practice')).toHaveLength(1);
-    expect(count((l) => l === 'checked')).toBe(16 + 2 * 14);
+    expect(count((l) => l === 'checked')).toBe(18 + 16 + 15);
     expect(count((l) => l === 'recalled')).toBeGreaterThan(60);
   });
 });
@@ -114,6 +117,7 @@ describe('disputed values: both kept, the rule stated, the alternative shown as 
     ['maleate', 1, 1.92, 2.038, 'maleic acid', 0.01],
     ['sulfate', 2, 1.987, 1.947, 'sodium hydrogen sulfate', 0.01],
     ['tartrate', 1, 3.036, 3.0, 'L-tartaric acid', 0.01],
+    ['oxalate', 2, 4.266, 4.275, 'sodium oxalate', 0.01],
   ] as const)('%s step %d: %d used, %d alternative', (id, k, used, alternative, reagent, molar) => {
     const s = step(id, k - 1);
     expect(s.pKa).toBe(used);

@@ -39,6 +39,8 @@ const VEGA_BATES_1976 = 'Vega & Bates 1976, Anal. Chem. 48, 1293';
 const BENEZETH_1997 = 'Bénézeth, Palmer & Wesolowski 1997, J. Solution Chem. 26, 63';
 const BATES_1951 = 'Bates 1951, J. Res. NBS 47, 127';
 const TRIS_1987 = 'Acid association quotients of Tris in aqueous NaCl media to 200 °C, J. Solution Chem. 16 (7), 1987 (OSTI 6977699)';
+const KETTLER_1991 = 'Kettler, Palmer & Wesolowski 1991, J. Solution Chem. 20 (9)';
+const DALTON_1994 = 'Potentiometric study of the protonation equilibria of tartaric acid in aqueous NaClO4 at 25 °C, J. Chem. Soc., Dalton Trans. 1994, 2729';
 const KETTLER_1995 = 'Kettler, Wesolowski & Palmer 1995, J. Solution Chem. 24 (1)';
 
 // Where the compilation and a primary study disagree beyond their uncertainties, the step keeps the compilation's
@@ -143,7 +145,15 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     forms: ['H2C2O4', 'HC2O4⁻', 'C2O4²⁻'],
     // ΔrH° and ΔrCp° of step 2 from the slope and curvature at 298.15 K of the Harned-cell fit
     // pK2 = 1423.8/T − 6.5007 + 0.020095·T; a recalled +7.3 kJ/mol had the sign wrong.
-    steps: [step(1.27, -3.9, -231), step(4.266, -6.94, -229, { dH: PB_1948, dCp: PB_1948 })],
+    // Kettler, Palmer & Wesolowski 1991 (abstract, 25 °C, I = 0): log K1a −1.277 ± 0.010, ΔH −4.1 ± 1.1 kJ/mol,
+    // ΔCp −168 ± 41 J/(K·mol): step 1's pKa and ΔrH° agree, its recalled ΔrCp° −231 changed to −168. Step 2: log K2a
+    // −4.275 ± 0.006 against the catalogue's 4.266 (a dispute, kept as the alternative); ΔH −6.8 ± 0.5 agrees with the
+    // fit's −6.94; ΔCp −261 ± 12 against the recalled fit's −229 is a second disagreement, left with the pKa's choice.
+    steps: [
+      step(1.27, -3.9, -168, all(checked(KETTLER_1991, 'abstract, 25 °C: log K1a −1.277 ± 0.010, ΔH −4.1 ± 1.1 kJ/mol, ΔCp −168 ± 41 J/(K·mol)', 0.010))),
+      step(4.266, -6.94, -229, { dH: checked(KETTLER_1991, 'abstract, 25 °C: ΔH2a −6.8 ± 0.5 kJ/mol'), dCp: PB_1948,
+        alternative: { pKa: 4.275, rule: KEEP_COMPILATION, provenance: checked(KETTLER_1991, 'abstract, 25 °C: log K2a −4.275 ± 0.006; ΔCp2a −261 ± 12 J/(K·mol)', 0.006) } }),
+    ],
     temperatureRangeC: RANGE_GKL,
     bindsIons: { ionIds: ['Ca2+', 'Mg2+'], reason: 'calcium oxalate is sparingly soluble and may precipitate; oxalate complexes are not modelled', source: 'common practice' },
   },
@@ -152,9 +162,11 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     chargeMostProtonated: 0, formulaMostProtonated: 'C4H6O6',
     forms: ['H2Tart', 'HTart⁻', 'Tart²⁻'],
     steps: [
+      // the alternative: thermodynamic protonation constants log β1 4.36 ± 0.02, log β2 7.36 ± 0.02 from 0.5–3 M NaClO4
+      // extrapolated with a Bromley model (J. Chem. Soc., Dalton Trans. 1994, 2729, abstract): pKa1 = 7.36 − 4.36 = 3.00
       step(3.036, 3.19, -144, { alternative: { pKa: 3.00, rule: KEEP_COMPILATION,
-        provenance: recalled('a value extrapolated to I = 0 from measurements at 0.5–3 M ionic strength, named in a catalogue review; the paper was not reached') } }),
-      step(4.366, 0.93, -217),
+        provenance: checked(DALTON_1994, 'abstract: log β2 − log β1 = 7.36 − 4.36 (each ± 0.02), extrapolated to I = 0 from 0.5–3 M NaClO4', 0.03) } }),
+      step(4.366, 0.93, -217, { pKa: checked(DALTON_1994, 'abstract: log β1 4.36 ± 0.02 at 25 °C, I = 0', 0.02) }),
     ],
     temperatureRangeC: RANGE_GKL,
   },

@@ -3,8 +3,8 @@
 /**
  * How far a constant's value has been traced:
  * - `checked`: read in the named source itself (its fitted equation, table or abstract; `where` says which)
- *   and the catalogue value agrees with it (pKa within 0.003, ΔrH° within 1 kJ/mol, ΔrCp° within 30 J/(K·mol),
- *   a molar mass within 0.005 g/mol);
+ *   and the catalogue value agrees with it (pKa within 0.003, ΔrH° within 1 kJ/mol, ΔrCp° within 30 J/(K·mol), or
+ *   within the source's own stated ± where that is larger);
  * - `recalled`: taken from the named compilation as remembered, not checked against it;
  * - `common practice`: a convention of the trade with no source to cite;
  * - `user`: typed by the user (custom systems).
