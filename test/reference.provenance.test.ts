@@ -61,6 +61,7 @@ describe('changed and checked constants against their primary sources', () => {
     ['carbonate', 2, 14.90, -290.5, 'Plummer & Busenberg 1982 log K2(T) at 298.15 K'],
     ['carbonate', 1, 9.11, -366.7, 'Plummer & Busenberg 1982 log K1(T) at 298.15 K'],
     ['phosphate', 1, -7.65, -154, 'Bates 1951 fit at 298.15 K'],
+    ['formate', 1, -0.09, -147, 'Bell et al. 1993, J. Solution Chem. 22, 125, abstract: ΔH −0.09 ± 0.15, ΔCp −147 ± 4'],
     ['oxalate', 1, -4.1, -168, 'Kettler et al. 1991, abstract: ΔH −4.1 ± 1.1, ΔCp −168 ± 41'],
     ['tris', 1, 47.53, -67, 'J. Solution Chem. 16 (7) 1987 (OSTI 6977699), abstract: association ΔH −47.53 ± 0.13, ΔCp 67 ± 13'],
   ] as const)('%s step %d: ΔrH° %d kJ/mol, ΔrCp° %d J/(K·mol) (%s)', (id, k, dH, dCp, _source) => {
@@ -107,7 +108,7 @@ describe('provenance on every constant', () => {
     expect(pKas.filter((l) => l === 'checked')).toHaveLength(18);
     expect(pKas.filter((l) => l === 'recalled')).toHaveLength(30);
     expect(pKas.filter((l) => l === 'common practice')).toHaveLength(1);
-    expect(count((l) => l === 'checked')).toBe(18 + 16 + 15);
+    expect(count((l) => l === 'checked')).toBe(18 + 17 + 16);
     expect(count((l) => l === 'recalled')).toBeGreaterThan(60);
   });
 });
@@ -118,6 +119,7 @@ describe('disputed values: both kept, the rule stated, the alternative shown as 
     ['sulfate', 2, 1.987, 1.947, 'sodium hydrogen sulfate', 0.01],
     ['tartrate', 1, 3.036, 3.0, 'L-tartaric acid', 0.01],
     ['oxalate', 2, 4.266, 4.275, 'sodium oxalate', 0.01],
+    ['formate', 1, 3.75, 3.755, 'formic acid', 0.01],
   ] as const)('%s step %d: %d used, %d alternative', (id, k, used, alternative, reagent, molar) => {
     const s = step(id, k - 1);
     expect(s.pKa).toBe(used);

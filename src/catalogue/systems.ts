@@ -41,6 +41,7 @@ const BATES_1951 = 'Bates 1951, J. Res. NBS 47, 127';
 const TRIS_1987 = 'Acid association quotients of Tris in aqueous NaCl media to 200 °C, J. Solution Chem. 16 (7), 1987 (OSTI 6977699)';
 const KETTLER_1991 = 'Kettler, Palmer & Wesolowski 1991, J. Solution Chem. 20 (9)';
 const DALTON_1994 = 'Potentiometric study of the protonation equilibria of tartaric acid in aqueous NaClO4 at 25 °C, J. Chem. Soc., Dalton Trans. 1994, 2729';
+const BELL_1993 = 'Bell, Wesolowski & Palmer 1993, J. Solution Chem. 22, 125: formic acid in NaCl media to 200 °C';
 const KETTLER_1995 = 'Kettler, Wesolowski & Palmer 1995, J. Solution Chem. 24 (1)';
 
 // Where the compilation and a primary study disagree beyond their uncertainties, the step keeps the compilation's
@@ -186,7 +187,10 @@ export const ACID_SYSTEMS: readonly AcidSystem[] = [
     id: 'formate', name: 'formate', aliases: ['formic acid'],
     chargeMostProtonated: 0, formulaMostProtonated: 'CH2O2',
     forms: ['HCOOH', 'HCOO⁻'],
-    steps: [step(3.75, -0.1, -165)],
+    // Bell, Wesolowski & Palmer 1993 (abstract, OSTI 6709085): log K −3.755 ± 0.002, ΔH −0.09 ± 0.15 kJ/mol, ΔCp
+    // −147 ± 4 J/(K·mol) at 25 °C: ΔrH° and ΔrCp° agree; the pKa differs by 0.005, beyond the ±, and is the alternative.
+    steps: [step(3.75, -0.1, -165, { dH: checked(BELL_1993, 'abstract, 25 °C: ΔH −0.09 ± 0.15 kJ/mol'), dCp: checked(BELL_1993, 'abstract, 25 °C: ΔCp −147 ± 4 J/(K·mol)'),
+      alternative: { pKa: 3.755, rule: KEEP_COMPILATION, provenance: checked(BELL_1993, 'abstract, 25 °C: log K −3.755 ± 0.002', 0.002) } })],
     temperatureRangeC: RANGE_GKL,
   },
   {
