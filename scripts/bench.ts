@@ -13,6 +13,7 @@ import * as impl from '../src/functions/impl';
 import { benchStock } from './bench/stock';
 import { browserBench } from './bench/browser';
 import { benchXlsx } from './bench/xlsx';
+import { qaBench } from './bench/qa';
 
 const MIXTURES: Record<string, MixtureRow[]> = {
   'one-system buffer (phosphate)': [
@@ -143,6 +144,7 @@ async function main(): Promise<void> {
   const stockBench = benchStock();
   const browser = await browserBench();
   const xlsx = await benchXlsx();
+  const qa = qaBench();
   const meanEvaluations = Object.values(engine).reduce((s, e) => s + e.evaluationsPerSolve, 0) / Object.keys(engine).length;
   const results = {
     date: new Date().toISOString(),
@@ -155,6 +157,7 @@ async function main(): Promise<void> {
     billOfMaterials: stockBench.figures,
     browser: browser.figures,
     xlsxVerify: xlsx.results,
+    uncertainty: qa.results,
     targets: {
       evaluationsPerSolveAtMost6: meanEvaluations <= 6,
       solveWithin10Evaluations: Object.values(engine).every((e) => e.solveOverEvaluation <= 10),
@@ -164,6 +167,7 @@ async function main(): Promise<void> {
       billOfMaterialsWithinHalfSecond: stockBench.figures.seconds <= 0.5,
       ...browser.figures.targets,
       xlsxVerifyAtLeast2000CellsPerSecond: xlsx.results.cellsPerSecond >= 2000,
+      ...qa.targets,
     },
   };
   const lines = [
@@ -186,6 +190,8 @@ async function main(): Promise<void> {
     ...browser.lines,
     '',
     ...xlsx.lines,
+    '',
+    ...qa.lines,
     '',
     `targets met: ${Object.entries(results.targets).map(([k, v]) => `${k} ${v ? 'yes' : 'NO'}`).join(', ')}`,
   ];

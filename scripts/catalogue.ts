@@ -1,6 +1,6 @@
 // npm run catalogue [-- reagents]: the catalogue as CSV with the source of every value, for a reviewer
 // to check constants against the literature or file with a validation record.
-import { ACID_SYSTEMS, CATALOGUE_VERSION, REAGENTS } from '../src/catalogue';
+import { ACID_SYSTEMS, CATALOGUE_VERSION, REAGENTS, levelLabel } from '../src/catalogue';
 import { dpKaPerK, molarMassOfReagent } from '../src/engine';
 import { csvField } from './lib/csv';
 
@@ -8,7 +8,8 @@ const line = (cells: (string | number | undefined)[]): string => cells.map((c) =
 
 /** One row per protonation step: the constants the engine uses, with their source and range. */
 export function systemsCsv(): string {
-  const rows = [line(['catalogue', 'system', 'step', 'acid form', 'base form', 'pKa (25 °C, I = 0)', 'ΔrH° (kJ/mol)', 'ΔrCp° (J/(K·mol))', 'dpKa/dT at 25 °C (/K)', 'range (°C)', 'source', 'model limits of the system (warnings)'])];
+  const rows = [line(['catalogue', 'system', 'step', 'acid form', 'base form', 'pKa (25 °C, I = 0)', 'ΔrH° (kJ/mol)', 'ΔrCp° (J/(K·mol))', 'dpKa/dT at 25 °C (/K)', 'range (°C)', 'source', 'model limits of the system (warnings)',
+    'pKa provenance', 'ΔrH° provenance', 'ΔrCp° provenance', 'measured range (°C)', 'alternative pKa', 'alternative source and rule'])];
   for (const s of ACID_SYSTEMS) {
     const limits = [
       s.concentrationLimit && `total above ${s.concentrationLimit.maxTotalM} mol/L (${s.concentrationLimit.source})`,
@@ -16,18 +17,22 @@ export function systemsCsv(): string {
       s.bindsIons && `with ${s.bindsIons.ionIds.join(', ')} (${s.bindsIons.source})`,
     ].filter(Boolean).join('; ');
     s.steps.forEach((st, k) => rows.push(line([CATALOGUE_VERSION, s.name, k + 1, s.forms[k], s.forms[k + 1], st.pKa, st.dHkJPerMol, st.dCpJPerKMol,
-      Number(dpKaPerK(st, 25).toFixed(4)), `${s.temperatureRangeC[0]}–${s.temperatureRangeC[1]}`, st.source, limits])));
+      Number(dpKaPerK(st, 25).toFixed(4)), `${s.temperatureRangeC[0]}–${s.temperatureRangeC[1]}`, st.source, limits,
+      levelLabel(st.provenance.pKa), levelLabel(st.provenance.dH), levelLabel(st.provenance.dCp),
+      s.measuredRangeC ? `${s.measuredRangeC[0]}–${s.measuredRangeC[1]}` : `${s.temperatureRangeC[0]}–${s.temperatureRangeC[1]}`,
+      st.alternative?.pKa, st.alternative && `${st.alternative.provenance.source} (${levelLabel(st.alternative.provenance)}); ${st.alternative.rule}`])));
   }
   return rows.join('\n') + '\n';
 }
 
 /** One row per reagent: what it is, what it releases, its molar mass from the formula and the handbook value. */
 export function reagentsCsv(): string {
-  const rows = [line(['catalogue', 'reagent', 'aliases', 'formula', 'hydrate water', 'releases', 'molar mass (g/mol, CIAAW 2021)', 'handbook (g/mol)', 'handbook source', 'liquid: density (g/mL), assay', 'liquid source'])];
+  const rows = [line(['catalogue', 'reagent', 'aliases', 'formula', 'hydrate water', 'releases', 'molar mass (g/mol, CIAAW 2021)', 'handbook (g/mol)', 'handbook source', 'liquid: density (g/mL), assay', 'liquid source', 'handbook level', 'liquid level'])];
   for (const r of REAGENTS) {
     const releases = [...r.systems.map((s) => `${s.count} ${s.systemId}`), ...r.ions.map((i) => `${i.count} ${i.ionId}`)].join('; ');
     rows.push(line([CATALOGUE_VERSION, r.name, r.aliases.join('; '), r.formula, r.hydrateWater, releases, Number(molarMassOfReagent(r).toFixed(3)),
-      r.handbookMolarMass?.gPerMol, r.handbookMolarMass?.source, r.liquid ? `${r.liquid.densityGPerML}, ${r.liquid.massFraction}` : undefined, r.liquid?.source]));
+      r.handbookMolarMass?.gPerMol, r.handbookMolarMass?.source, r.liquid ? `${r.liquid.densityGPerML}, ${r.liquid.massFraction}` : undefined, r.liquid?.source,
+      r.handbookMolarMass && levelLabel({ level: r.handbookMolarMass.level, source: r.handbookMolarMass.source }), r.liquid && levelLabel({ level: r.liquid.level, source: r.liquid.source })]));
   }
   return rows.join('\n') + '\n';
 }

@@ -115,12 +115,12 @@ describe('writing blocks into the sheet (office-addin-mock)', () => {
     const table = impl.species([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, 25);
     const constants = impl.constants([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, 25);
     const block = speciesBlock(MIX, table.length, constants.length, 0, 0);
-    expect(block.cells[6]).toEqual(['=PROTIC.SPECIES(A2:A3,B2:B3,C2:C3,B4,B5,B6)', null, null, null, null]);
-    expect(block.cells[6 + table.length]).toEqual(['=PROTIC.CONSTANTS(A2:A3,B2:B3,C2:C3,B4,B5,B6)', null, null, null, null]);
+    expect(block.cells[6].slice(0, 5)).toEqual(['=PROTIC.SPECIES(A2:A3,B2:B3,C2:C3,B4,B5,B6)', null, null, null, null]);
+    expect(block.cells[6 + table.length]).toEqual(['=PROTIC.CONSTANTS(A2:A3,B2:B3,C2:C3,B4,B5,B6)', ...Array(constants[0].length - 1).fill(null)]);
     expect(block.cells).toHaveLength(6 + table.length + constants.length);
     const v = evaluateSheet(block.cells);
     expect(v.slice(6, 6 + table.length).map((r) => r.slice(0, 5))).toEqual(table);
-    expect(v.slice(6 + table.length).map((r) => r.slice(0, 5))).toEqual(constants);
+    expect(v.slice(6 + table.length).map((r) => r.slice(0, constants[0].length))).toEqual(constants);
   });
 
   test('the temperature what-if table: an editable temperature column, pH and warnings per row', () => {
@@ -235,15 +235,15 @@ describe('nothing lost: the sheet (office-addin-mock worksheet, HyperFormula)', 
   test('the audit block\'s reserved spill rows are never written: user data beside it and inside its room is kept when nothing is asked', async () => {
     const table = impl.species([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, 25).length;
     const constants = impl.constants([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, 25).length;
-    const { cellsWritten, sheet } = mockExcel(0, 0, { '0,6': 'keep me', '200,0': 'far below' });
+    const { cellsWritten, sheet } = mockExcel(0, 0, { '0,11': 'keep me', '200,0': 'far below' });
     await writeBlockAtSelection((t, l) => speciesBlock(MIX, table, constants, t, l), neverAsked);
     // before, the spills' rooms were written as '' (120 cells cleared); now only the block's own cells are
     const block = speciesBlock(MIX, table, constants, 0, 0).cells;
     const own = block.flatMap((row, i) => row.map((v, j) => (v === null ? '' : `${i},${j}`))).filter((k) => k !== '');
     expect([...cellsWritten].sort()).toEqual(own.sort());
-    const values = evaluateSheet(sheet(6 + table + constants, 7));
+    const values = evaluateSheet(sheet(6 + table + constants, 12));
     expect(values.slice(6, 6 + table).map((r) => r.slice(0, 5))).toEqual(impl.species([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, 25));
-    expect(values[0][6]).toBe('keep me');
+    expect(values[0][11]).toBe('keep me');
   });
 
   test('a user cell inside a spill\'s room counts: the pane asks, and a "no" leaves it', async () => {
@@ -251,7 +251,8 @@ describe('nothing lost: the sheet (office-addin-mock worksheet, HyperFormula)', 
     const { grid } = mockExcel(0, 0, { '9,3': 'in the spill room' });
     const asked: [string, number][] = [];
     await writeBlockAtSelection((t, l) => speciesBlock(MIX, table, 5, t, l), async (range, count) => { asked.push([range, count]); return false; });
-    expect(asked).toEqual([[`A1:E${6 + table + 5}`, 1]]);
+    // CONSTANTS spills 11 columns (A–K), so the block's room is that wide
+    expect(asked).toEqual([[`A1:K${6 + table + 5}`, 1]]);
     expect(grid.get('9,3')).toBe('in the spill room');
   });
 
@@ -475,6 +476,7 @@ describe('catalogue view', () => {
     expect(v.steps[1].apparentPKa).toBeLessThan(v.steps[1].pKa);
     expect(v.forms.map((f) => f.label)).toEqual(['H3PO4', 'H2PO4⁻', 'HPO4²⁻', 'PO4³⁻']);
     expect(v.forms[0].molarMassGPerMol).toBeCloseTo(97.995, 2);
-    expect(v.steps[0].source).toMatch(/Goldberg/);
+    expect(v.steps[0].source).toMatch(/^Bates 1951.*checked/); // step 1 checked in its primary source
+    expect(v.steps[1].source).toMatch(/Goldberg/);
   });
 });

@@ -70,6 +70,27 @@ describe('README examples evaluate to what the README prints', () => {
     expect(String(step2[4])).toMatch(/^Goldberg, Kishore & Lennen 2002/);
   });
 
+  test('READBACK, HANDCHECK and UNCERTAINTY: the values printed', () => {
+    const rb = '=PROTIC.READBACK(A1:A2,B1:B2,C1:C2,1)';
+    expect(README).toContain(`\`${rb}\` → 3.4 g KH2PO4, potassium dihydrogen phosphate, KH2PO4, 136.084, 0.024985 mol, phosphate 0.0249846 mol/L; K⁺ 0.0249846 mol/L …`);
+    const r = evaluate(rb)[1];
+    expect(r.slice(0, 3)).toEqual(['3.4 g KH2PO4', 'potassium dihydrogen phosphate', 'KH2PO4']);
+    expect(Math.abs((r[3] as number) - 136.084)).toBeLessThanOrEqual(halfUlp('136.084'));
+    expect(Math.abs((r[5] as number) - 0.024985)).toBeLessThanOrEqual(halfUlp('0.024985'));
+    expect(r[7]).toBe('phosphate 0.0249846 mol/L; K⁺ 0.0249846 mol/L');
+    const hc = '=PROTIC.HANDCHECK(A1:A2,B1:B2,C1:C2,1,25,6.86)';
+    expect(README).toContain(`\`${hc}\` → textbook estimate 7.1984, exact pH 6.8759, shift: activity −0.3225 …`);
+    const h = evaluate(hc), row = (label: string) => h.find((x) => x[0] === label)!;
+    expect(Math.abs((row('textbook estimate')[1] as number) - 7.1984)).toBeLessThanOrEqual(halfUlp('7.1984'));
+    expect(Math.abs((row('exact pH')[1] as number) - 6.8759)).toBeLessThanOrEqual(halfUlp('6.8759'));
+    expect(Math.abs((row('shift: activity')[2] as number) + 0.3225)).toBeLessThanOrEqual(halfUlp('0.3225'));
+    const un = '=PROTIC.UNCERTAINTY(A1:A2,B1:B2,C1:C2,1,25,,0.01,0.002,0.5)';
+    expect(README).toContain(`\`${un}\` → … combined standard uncertainty u(pH) 0.0116, expanded uncertainty U (k = 2) 0.0232`);
+    const u = evaluate(un), urow = (label: string) => u.find((x) => x[0] === label)![1] as number;
+    expect(Math.abs(urow('combined standard uncertainty u(pH)') - 0.0116)).toBeLessThanOrEqual(halfUlp('0.0116'));
+    expect(Math.abs(urow('expanded uncertainty U (k = 2)') - 0.0232)).toBeLessThanOrEqual(halfUlp('0.0232'));
+  });
+
   test.each([
     ['=PROTIC.WARNINGS({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;700},{"g";"g";"mM"},1)'],
     ['=PROTIC.VERSION()'],

@@ -4,6 +4,9 @@
 import { ArraySize, CellError, DetailedCellError, EmptyValue, ErrorType, FunctionArgumentType, FunctionPlugin, HyperFormula, SimpleRangeValue } from 'hyperformula';
 import type { RawCellContent } from 'hyperformula';
 import * as impl from '../../src/functions/impl';
+import { uncertainty } from '../../src/functions/uncertainty';
+import { readback } from '../../src/functions/readback';
+import { handcheck } from '../../src/functions/handcheck';
 import { toCellFailure } from '../../src/functions/outcome';
 import { stock } from '../../src/functions/stock';
 
@@ -23,7 +26,7 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 2] },
   { name: 'FRACTIONS', fn: impl.fractions as Impl, arity: [2, 4], fallback: [1, 7] },
   { name: 'SPECIES', fn: impl.species as Impl, arity: [3, 6], fallback: [40, 5] },
-  { name: 'CONSTANTS', fn: impl.constants as Impl, arity: [3, 6], fallback: [30, 5] },
+  { name: 'CONSTANTS', fn: impl.constants as Impl, arity: [3, 6], fallback: [30, 11] },
   { name: 'WARNINGS', fn: impl.warnings as Impl, arity: [3, 6] },
   { name: 'IONICSTRENGTH', fn: impl.ionicStrength as Impl, arity: [3, 6] },
   { name: 'CAPACITY', fn: impl.capacity as Impl, arity: [3, 6] },
@@ -32,9 +35,12 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'MOLARMASS', fn: impl.molarMass as Impl, arity: [1, 1] },
   { name: 'VERSION', fn: impl.version as Impl, arity: [0, 0] },
   { name: 'STOCK', fn: stock as Impl, arity: [4, 5] },
+  { name: 'UNCERTAINTY', fn: uncertainty as Impl, arity: [4, 9], fallback: [40, 9] },
+  { name: 'READBACK', fn: readback as Impl, arity: [3, 5], fallback: [20, 9] },
+  { name: 'HANDCHECK', fn: handcheck as Impl, arity: [3, 6], fallback: [20, 4] },
 ];
 
-const SPILLS = new Set(['CURVE', 'FRACTIONS', 'SPECIES', 'CONSTANTS', 'RECIPE']);
+const SPILLS = new Set(['CURVE', 'FRACTIONS', 'SPECIES', 'CONSTANTS', 'RECIPE', 'UNCERTAINTY', 'READBACK', 'HANDCHECK']);
 const BY_NAME = new Map(PROTIC_FUNCTIONS.map((f) => [f.name, f] as [string, ProticFunction]));
 
 /**

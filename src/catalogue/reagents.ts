@@ -1,9 +1,11 @@
 import type { Reagent } from './types';
 
-// Handbook molar masses the tests check each formula against.
-const CRC = 'CRC Handbook of Chemistry and Physics, physical constants of compounds (from memory)';
+// Handbook molar masses, recalled (not checked): kept only as a cross-check of each formula and hydrate (a wrong water
+// or counter-ion is off by 1 g/mol or more). The molar mass Protic uses is always the sum of the CIAAW 2021
+// conventional atomic weights (elements.ts), which test/molarMass.ciaaw.test.ts checks independently.
+const CRC = 'CRC Handbook of Chemistry and Physics, physical constants of compounds';
 // Densities and assays of concentrated liquids as sold.
-const CRC_DENSITY = 'CRC Handbook, concentrative properties of aqueous solutions, 20 °C (from memory)';
+const CRC_DENSITY = 'CRC Handbook, concentrative properties of aqueous solutions, 20 °C';
 
 interface ReagentInput {
   id: string;
@@ -32,7 +34,7 @@ function r(input: ReagentInput): Reagent {
       : input.system ? [{ systemId: input.system, count: input.systemCount ?? 1 }] : [],
     ions: Object.entries(input.ions ?? {}).map(([ionId, count]) => ({ ionId, count })),
     liquid: input.liquid,
-    handbookMolarMass: input.mm === undefined ? undefined : { gPerMol: input.mm, source: CRC },
+    handbookMolarMass: input.mm === undefined ? undefined : { gPerMol: input.mm, source: CRC, level: 'recalled' },
   };
 }
 
@@ -40,7 +42,7 @@ export const REAGENTS: readonly Reagent[] = [
   // phosphate
   r({ id: 'h3po4', name: 'phosphoric acid', aliases: ['orthophosphoric acid'], formula: 'H3PO4', system: 'phosphate', mm: 97.99 }),
   r({ id: 'h3po4-85', name: 'phosphoric acid 85%', aliases: ['phosphoric acid 85 %', 'ortho-phosphoric acid 85%'], formula: 'H3PO4', system: 'phosphate',
-    liquid: { densityGPerML: 1.685, massFraction: 0.85, source: CRC_DENSITY } }),
+    liquid: { densityGPerML: 1.685, massFraction: 0.85, source: CRC_DENSITY, level: 'recalled' } }),
   r({ id: 'nah2po4', name: 'sodium dihydrogen phosphate', aliases: ['monosodium phosphate', 'sodium phosphate monobasic'], formula: 'NaH2PO4', system: 'phosphate', ions: { 'Na+': 1 }, mm: 119.98 }),
   r({ id: 'nah2po4-1', name: 'sodium dihydrogen phosphate monohydrate', aliases: ['sodium phosphate monobasic monohydrate'], formula: 'NaH2PO4', hydrateWater: 1, system: 'phosphate', ions: { 'Na+': 1 }, mm: 137.99 }),
   r({ id: 'nah2po4-2', name: 'sodium dihydrogen phosphate dihydrate', aliases: ['sodium phosphate monobasic dihydrate'], formula: 'NaH2PO4', hydrateWater: 2, system: 'phosphate', ions: { 'Na+': 1 }, mm: 156.01 }),
@@ -66,7 +68,7 @@ export const REAGENTS: readonly Reagent[] = [
   // acetate
   r({ id: 'acetic', name: 'acetic acid', aliases: ['ethanoic acid'], formula: 'CH3COOH', system: 'acetate', mm: 60.05 }),
   r({ id: 'acetic-glacial', name: 'glacial acetic acid', aliases: ['acetic acid glacial', 'acetic acid 100%'], formula: 'CH3COOH', system: 'acetate',
-    liquid: { densityGPerML: 1.049, massFraction: 1.0, source: CRC_DENSITY } }),
+    liquid: { densityGPerML: 1.049, massFraction: 1.0, source: CRC_DENSITY, level: 'recalled' } }),
   r({ id: 'naoac', name: 'sodium acetate', aliases: ['sodium acetate anhydrous'], formula: 'CH3COONa', system: 'acetate', ions: { 'Na+': 1 }, mm: 82.03 }),
   r({ id: 'naoac-3', name: 'sodium acetate trihydrate', formula: 'CH3COONa', hydrateWater: 3, system: 'acetate', ions: { 'Na+': 1 }, mm: 136.08 }),
   r({ id: 'koac', name: 'potassium acetate', formula: 'CH3COOK', system: 'acetate', ions: { 'K+': 1 }, mm: 98.14 }),
@@ -106,7 +108,7 @@ export const REAGENTS: readonly Reagent[] = [
   // sulfate
   r({ id: 'h2so4', name: 'sulfuric acid', aliases: ['sulphuric acid'], formula: 'H2SO4', system: 'sulfate', mm: 98.08 }),
   r({ id: 'h2so4-96', name: 'sulfuric acid 96%', aliases: ['sulfuric acid 96 %', 'sulphuric acid 96%'], formula: 'H2SO4', system: 'sulfate',
-    liquid: { densityGPerML: 1.835, massFraction: 0.96, source: CRC_DENSITY } }),
+    liquid: { densityGPerML: 1.835, massFraction: 0.96, source: CRC_DENSITY, level: 'recalled' } }),
   r({ id: 'na2so4', name: 'sodium sulfate', aliases: ['sodium sulfate anhydrous', 'sodium sulphate'], formula: 'Na2SO4', system: 'sulfate', ions: { 'Na+': 2 }, mm: 142.04 }),
   r({ id: 'na2so4-10', name: 'sodium sulfate decahydrate', aliases: ["Glauber's salt"], formula: 'Na2SO4', hydrateWater: 10, system: 'sulfate', ions: { 'Na+': 2 }, mm: 322.20 }),
   r({ id: 'k2so4', name: 'potassium sulfate', formula: 'K2SO4', system: 'sulfate', ions: { 'K+': 2 }, mm: 174.26 }),
@@ -116,7 +118,7 @@ export const REAGENTS: readonly Reagent[] = [
   // ammonium
   r({ id: 'nh4cl', name: 'ammonium chloride', formula: 'NH4Cl', system: 'ammonium', ions: { 'Cl-': 1 }, mm: 53.49 }),
   r({ id: 'nh3-28', name: 'ammonia solution 28%', aliases: ['ammonium hydroxide 28%', 'aqueous ammonia 28%'], formula: 'NH3', system: 'ammonium',
-    liquid: { densityGPerML: 0.898, massFraction: 0.28, source: CRC_DENSITY } }),
+    liquid: { densityGPerML: 0.898, massFraction: 0.28, source: CRC_DENSITY, level: 'recalled' } }),
   r({ id: 'nh3', name: 'ammonia', formula: 'NH3', system: 'ammonium', mm: 17.03 }),
   // Tris and Good's buffers
   r({ id: 'tris', name: 'Tris', aliases: ['Tris base', 'trometamol', 'tromethamine', 'THAM', 'tris(hydroxymethyl)aminomethane'], formula: 'C4H11NO3', system: 'tris', mm: 121.14 }),
@@ -148,14 +150,14 @@ export const REAGENTS: readonly Reagent[] = [
   // strong acids and bases
   r({ id: 'hcl', name: 'hydrogen chloride', aliases: ['hydrochloric acid'], formula: 'HCl', ions: { 'Cl-': 1 }, mm: 36.46 }),
   r({ id: 'hcl-37', name: 'hydrochloric acid 37%', aliases: ['hydrochloric acid 37 %', 'concentrated hydrochloric acid'], formula: 'HCl', ions: { 'Cl-': 1 },
-    liquid: { densityGPerML: 1.184, massFraction: 0.37, source: CRC_DENSITY } }),
+    liquid: { densityGPerML: 1.184, massFraction: 0.37, source: CRC_DENSITY, level: 'recalled' } }),
   r({ id: 'hno3', name: 'nitric acid', formula: 'HNO3', ions: { 'NO3-': 1 }, mm: 63.01 }),
   r({ id: 'hno3-70', name: 'nitric acid 70%', aliases: ['nitric acid 70 %', 'concentrated nitric acid'], formula: 'HNO3', ions: { 'NO3-': 1 },
-    liquid: { densityGPerML: 1.413, massFraction: 0.70, source: CRC_DENSITY } }),
+    liquid: { densityGPerML: 1.413, massFraction: 0.70, source: CRC_DENSITY, level: 'recalled' } }),
   r({ id: 'hclo4', name: 'perchloric acid', formula: 'HClO4', ions: { 'ClO4-': 1 }, mm: 100.46 }),
   r({ id: 'naoh', name: 'sodium hydroxide', aliases: ['caustic soda'], formula: 'NaOH', ions: { 'Na+': 1 }, mm: 40.00 }),
   r({ id: 'naoh-50', name: 'sodium hydroxide 50%', aliases: ['sodium hydroxide 50 %', 'caustic soda 50%'], formula: 'NaOH', ions: { 'Na+': 1 },
-    liquid: { densityGPerML: 1.525, massFraction: 0.50, source: CRC_DENSITY } }),
+    liquid: { densityGPerML: 1.525, massFraction: 0.50, source: CRC_DENSITY, level: 'recalled' } }),
   r({ id: 'koh', name: 'potassium hydroxide', aliases: ['caustic potash'], formula: 'KOH', ions: { 'K+': 1 }, mm: 56.11 }),
   // inert salts
   r({ id: 'nacl', name: 'sodium chloride', aliases: ['salt'], formula: 'NaCl', ions: { 'Na+': 1, 'Cl-': 1 }, mm: 58.44 }),

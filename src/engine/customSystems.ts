@@ -1,8 +1,11 @@
-import type { AcidSystem, Reagent, StrongIon } from '../catalogue';
+import type { AcidSystem, Provenance, Reagent, StrongIon } from '../catalogue';
 import { ACID_SYSTEMS, strongIonById } from '../catalogue';
 import { ProticError, describeFailure, fail, quote } from './failure';
 import { parseFormula } from './formula';
 import { normaliseName, setCustomDefinitions } from './registry';
+
+// Typed by the user: provenance level `user` for every constant a custom system defines.
+const USER: Provenance = { level: 'user', source: 'user-defined in this workbook' };
 
 // User-defined acid systems, carried in the workbook (document settings) or a --systems file.
 // Our own JSON shape:
@@ -79,7 +82,10 @@ function buildSystem(def: Record<string, unknown>, index: number, taken: Set<str
     chargeMostProtonated: charge,
     formulaMostProtonated: '',
     forms: pKa.concat([0]).map((_, j) => `${name} (${charge - j > 0 ? '+' : ''}${charge - j})`),
-    steps: pKa.map((v, i) => ({ pKa: v, dHkJPerMol: dH?.[i], dCpJPerKMol: dCp?.[i], source: 'user-defined in this workbook' })),
+    steps: pKa.map((v, i) => ({
+      pKa: v, dHkJPerMol: dH?.[i], dCpJPerKMol: dCp?.[i], source: 'user-defined in this workbook',
+      provenance: { pKa: USER, dH: dH?.[i] === undefined ? null : USER, dCp: dCp?.[i] === undefined ? null : USER },
+    })),
     temperatureRangeC: [0, 60],
     notes: 'User-defined; not part of the reviewed catalogue.',
   };

@@ -36,3 +36,7 @@ export { HANDLE_MAX_CHARS, HANDLE_VERSION, decodeHandle, encodeHandle, looksLike
 export type { StockComposition } from './stockHandle';
 export { adjustedStockComposition, parseAdjustedStock } from './adjustedStock';
 export type { AdjustedStockText } from './adjustedStock';
+export { pHWithStepPKa, withStepPKa } from './alternative';
+export { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
+export { LADDER_EFFECTS, handLadder } from './handcheck';
+export type { HandLadder } from './handcheck';

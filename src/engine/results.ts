@@ -90,6 +90,11 @@ export function modelWarning(eq: Equilibrium): string {
         warnings.push(`${s.system.forms[sol.formIndex]} ${formM.toPrecision(3)} mol/L is above its solubility, about ${sol.maxM} mol/L at ${sol.temperatureC} °C: ${sol.consequence}`);
       }
     }
+    // outside the measured range the pKa are van 't Hoff extrapolations with the catalogue ΔrH° and ΔrCp°
+    const measured = s.system.measuredRangeC;
+    if (measured && p.totalsM[i] > 0 && (p.temperatureC < measured[0] || p.temperatureC > measured[1])) {
+      warnings.push(`${s.system.name} at ${p.temperatureC} °C: the data were measured over ${measured[0]}–${measured[1]} °C; its pKa here are extrapolated by van 't Hoff with the catalogue ΔrH°`);
+    }
     // a step with no ΔrH° keeps its 25 °C pKa at every temperature: say so where that step matters
     if (Math.abs(p.temperatureC - 25) > 2) {
       s.system.steps.forEach((step, k) => {

@@ -1,5 +1,8 @@
 /* global CustomFunctions */
+import { handcheck } from './handcheck';
 import * as impl from './impl';
+import { readback } from './readback';
+import { uncertainty } from './uncertainty';
 import { toCellFailure } from './outcome';
 import { stock } from './stock';
 import { ensureWorkbookSystems, workbookSystemsReady } from './workbookSystems';
@@ -242,5 +245,74 @@ function STOCK(reagents: any[][], amounts: any[][], units: any[][], volume: numb
   return run(() => stock(reagents, amounts, units, volume, name));
 }
 
+/**
+ * Each input row as read: reagent, formula, molar mass, assay or density or stock, moles, final concentration, what it releases.
+ * @customfunction READBACK
+ * @helpurl https://localhost:3000/help.html#readback
+ * @param reagents Reagents, one per row.
+ * @param amounts Amount of each reagent.
+ * @param units Unit of each amount: one cell or one per row.
+ * @param [volume] Final volume of the solution, L.
+ * @param [temperature] Temperature, °C (default 25).
+ * @returns A spill with a header row, one row per input row, then the final volume and temperature.
+ */
+function READBACK(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any): any[][] {
+  return run(() => readback(reagents, amounts, units, volume, temperature));
+}
+
+/**
+ * Why a hand value differs: the textbook estimate, the exact pH, and the shift of each neglected effect in a fixed order.
+ * @customfunction HANDCHECK
+ * @helpurl https://localhost:3000/help.html#handcheck
+ * @param reagents Reagents, one per row.
+ * @param amounts Amount of each reagent.
+ * @param units Unit of each amount: one cell or one per row.
+ * @param [volume] Final volume of the solution, L.
+ * @param [temperature] Temperature, °C (default 25).
+ * @param [handPH] A pH worked out by hand, to find the step it matches.
+ * @returns A labelled spill: estimate, exact pH, six shifts, their sum, and with handPH the differences.
+ */
+function HANDCHECK(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, handPH?: any): any[][] {
+  return run(() => handcheck(reagents, amounts, units, volume, temperature, handPH));
+}
+
+/**
+ * The uncertainty budget of the pH (GUM): each input's standard uncertainty, sensitivity and contribution, then u(pH) and U (k = 2).
+ * @customfunction UNCERTAINTY
+ * @helpurl https://localhost:3000/help.html#uncertainty
+ * @param reagents Reagents, one per row.
+ * @param amounts Amount of each reagent.
+ * @param units Unit of each amount: one cell or one per row.
+ * @param volume Final volume of the solution, L.
+ * @param [temperature] Temperature, °C (default 25).
+ * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [amountTolerances] ± tolerance of each amount in its own unit: one cell for all, or one per row.
+ * @param [volumeTolerance] ± tolerance of the final volume, L.
+ * @param [temperatureTolerance] ± tolerance of the temperature, °C.
+ * @returns A spill with a header row: one line per input, then the combined and expanded uncertainty.
+ */
+function UNCERTAINTY(reagents: any[][], amounts: any[][], units: any[][], volume: any, temperature?: any, model?: any,
+  amountTolerances?: any, volumeTolerance?: any, temperatureTolerance?: any): any[][] {
+  return run(() => uncertainty(reagents, amounts, units, volume, temperature, model, amountTolerances, volumeTolerance, temperatureTolerance));
+}
+
 // The metadata plugin's loader appends CustomFunctions.associate for each @customfunction above.
-export const EXCEL_FUNCTIONS = { PHMIX, TITRANT, CURVE, FRACTIONS, SPECIES, CONSTANTS, WARNINGS, IONICSTRENGTH, CAPACITY, PKA, RECIPE, MOLARMASS, VERSION, STOCK };
+export const EXCEL_FUNCTIONS = {
+  PHMIX,
+  TITRANT,
+  CURVE,
+  FRACTIONS,
+  SPECIES,
+  CONSTANTS,
+  WARNINGS,
+  IONICSTRENGTH,
+  CAPACITY,
+  PKA,
+  RECIPE,
+  MOLARMASS,
+  VERSION,
+  READBACK,
+  HANDCHECK,
+  UNCERTAINTY,
+  STOCK,
+};

@@ -1,7 +1,7 @@
-import { ADDIN_VERSION, CATALOGUE_VERSION } from '../catalogue';
+import { ADDIN_VERSION, CATALOGUE_VERSION, levelLabel } from '../catalogue';
 import {
   apparentPKas, bufferCapacity, buildContents, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
-  WATER_SOURCES, debyeHuckelA, fractionsAt, looksLikeFormula, modelWarning, pKw, waterDensityKgPerL, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
+  WATER_RANGE_C, WATER_SOURCES, debyeHuckelA, pHWithStepPKa, fractionsAt, looksLikeFormula, modelWarning, pKw, waterDensityKgPerL, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
   pKaAt, prepareProblem, quote, reagentByName, recipeForTarget, registryGeneration, resolveReagent, resolveSystem, speciesRows, solve,
   titrantForTarget, titrantUnit, unitToMoles, withTitrant,
 } from '../engine';
@@ -89,7 +89,8 @@ export function warnings(reagents: Cell, amounts: Cell, units: Cell, volume?: Ce
   return warning === '' ? 'none' : warning;
 }
 
-export const CONSTANTS_HEADER = ['constant', 'step', 'at this temperature, I = 0', 'at this ionic strength', 'source'];
+export const CONSTANTS_HEADER = ['constant', 'step', 'at this temperature, I = 0', 'at this ionic strength', 'source',
+  'ΔrH° (kJ/mol)', 'ΔrCp° (J/(K·mol))', 'data range (°C)', 'provenance', 'alternative pKa (25 °C)', 'pH with the alternative − pH'];
 
 /**
  * Every constant the mixture's solve used, with its source: each pKa at the temperature, and the apparent value
@@ -100,19 +101,28 @@ export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: C
   const eq = equilibriumOf(m);
   const p = eq.problem;
   const table: CellScalar[][] = [CONSTANTS_HEADER];
-  p.systems.forEach((s) => {
+  p.systems.forEach((s, i) => {
     const alpha = fractionsAt(s.lnCumK, eq.lnH);
     s.system.steps.forEach((step, k) => {
       // where a form is too rare to carry a ratio (below 1e-300), the apparent value is not shown
       const ratio = alpha[k + 1] / alpha[k];
       const apparent = Number.isFinite(ratio) && ratio > 0 ? eq.pH - Math.log10(ratio) : '';
-      table.push([`pKa ${s.system.name}`, k + 1, finite(pKaAt(step, m.temperatureC), 'pKa'), apparent, step.source]);
+      const range = s.system.measuredRangeC ?? s.system.temperatureRangeC;
+      const level = [`pKa ${levelLabel(step.provenance.pKa)}`, step.provenance.dH && `ΔrH° ${levelLabel(step.provenance.dH)}`,
+        step.provenance.dCp && `ΔrCp° ${levelLabel(step.provenance.dCp)}`].filter(Boolean).join('; ');
+      const alt = step.alternative;
+      // the other published value, re-solved: how much the choice between the two moves this mixture's pH
+      const altShift = alt ? finite(pHWithStepPKa(p, i, k, alt.pKa) - eq.pH, 'pH shift') : '';
+      table.push([`pKa ${s.system.name}`, k + 1, finite(pKaAt(step, m.temperatureC), 'pKa'), apparent, step.source,
+        step.dHkJPerMol ?? '', step.dCpJPerKMol ?? '', `${range[0]}–${range[1]}`, level,
+        alt ? alt.pKa : '', altShift]);
     });
   });
-  table.push(['pKw', '', finite(pKw(m.temperatureC), 'pKw'), '', WATER_SOURCES.pKw]);
-  table.push(['Debye–Hückel A (kg/mol)^½', '', debyeHuckelA(m.temperatureC), '', WATER_SOURCES.debyeHuckelA]);
-  table.push(['water density (kg/L)', '', waterDensityKgPerL(m.temperatureC), '', WATER_SOURCES.density]);
-  table.push(['model', `${m.model}, ${m.temperatureC} °C, ionic strength ${eq.ionicStrengthM.toPrecision(4)} mol/L`, '', '', '']);
+  const water = (name: string, value: number, source: string): CellScalar[] => [name, '', value, '', source, '', '', `${WATER_RANGE_C[0]}–${WATER_RANGE_C[1]}`, 'recalled, not checked', '', ''];
+  table.push(water('pKw', finite(pKw(m.temperatureC), 'pKw'), WATER_SOURCES.pKw));
+  table.push(water('Debye–Hückel A (kg/mol)^½', debyeHuckelA(m.temperatureC), WATER_SOURCES.debyeHuckelA));
+  table.push(water('water density (kg/L)', waterDensityKgPerL(m.temperatureC), WATER_SOURCES.density));
+  table.push(['model', `${m.model}, ${m.temperatureC} °C, ionic strength ${eq.ionicStrengthM.toPrecision(4)} mol/L`, '', '', '', '', '', '', '', '', '']);
   return table;
 }
 

@@ -1,3 +1,4 @@
+import { CONSTANTS_HEADER } from '../functions/impl';
 import { Refusal } from './refusal';
 
 // Labelled blocks the pane writes into the sheet at the selected cell: inputs in cells and a
@@ -35,7 +36,7 @@ export const SPILL_SHAPES = {
   CURVE: (points: number): Shape => [points, 2],
   FRACTIONS: (formCount: number): Shape => [1, formCount],
   SPECIES: (tableRows: number): Shape => [tableRows, 5],
-  CONSTANTS: (tableRows: number): Shape => [tableRows, 5],
+  CONSTANTS: (tableRows: number): Shape => [tableRows, CONSTANTS_HEADER.length],
 };
 
 /** The formula in the first cell of its spill, the rest of the spill left unwritten. */

@@ -1,0 +1,67 @@
+import { buildContents, prepareProblem, shiftConstants, solve } from '../src/engine';
+import type { MixtureRow } from '../src/engine';
+import { uncertaintyBudget } from '../src/functions/uncertainty';
+import { evaluateSheet } from '../scripts/lib/sheetEngine';
+import { CASES } from './uncertaintyCases';
+
+describe('UNCERTAINTY: one input', () => {
+  test('HCl alone with a mass tolerance: u(pH) is that input\'s |sensitivity| × u, and the sensitivity is −1/(m ln 10) to first order', () => {
+    // 0.3646 g HCl in 1 L ± 0.003 g: pH ≈ −log10(γ m/M); d pH/dm = −1/(m ln 10) (1 + d ln γ/d ln c), activity part < 3 % here
+    const b = uncertaintyBudget([['HCl']], [[0.3646]], [['g']], 1, 25, 'ideal', [[0.003]], 0, 0);
+    const amount = b.lines[0];
+    expect(amount.u).toBeCloseTo(0.003 / Math.sqrt(3), 12);
+    const others = b.lines.slice(1).reduce((s, l) => s + (l.sensitivity * l.u) ** 2, 0);
+    expect(others).toBeLessThan(1e-16); // pKw does not matter at pH 2; no volume or temperature tolerance
+    expect(Math.abs(b.combined / (Math.abs(amount.sensitivity) * amount.u) - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(amount.sensitivity / (-1 / (0.3646 * Math.LN10)) - 1)).toBeLessThan(1e-6);
+  });
+
+  test('through the sheet: the spill\'s last rows are u(pH) and U = 2u', () => {
+    const v = evaluateSheet([
+      ['KH2PO4', 3.4, 'g', 0.01], ['Na2HPO4', 3.55, 'g', 0.01],
+      ['=PROTIC.UNCERTAINTY(A1:A2,B1:B2,C1:C2,1,25,"davies",D1:D2,0.002,0.5)'],
+    ]);
+    const rows = v.slice(2).filter((r) => typeof r[0] === 'string' && r[0] !== '');
+    const u = rows.find((r) => r[0] === 'combined standard uncertainty u(pH)')![1] as number;
+    const U = rows.find((r) => r[0] === 'expanded uncertainty U (k = 2)')![1] as number;
+    expect(U).toBeCloseTo(2 * u, 12);
+    const contributions = rows.filter((r) => typeof r[7] === 'number').map((r) => r[7] as number);
+    expect(Math.hypot(...contributions)).toBeCloseTo(u, 12);
+  });
+});
+
+describe('UNCERTAINTY: each implicit sensitivity against a central difference of the full solve', () => {
+  // The code under test never differences the solve; here the solve is re-run at x ± h as an independent check.
+  const solvePH = (reagents: string[], amounts: number[], units: string[], volumeL: number, temperatureC: number, shift?: (p: ReturnType<typeof prepareProblem>) => void) => {
+    const rows: MixtureRow[] = reagents.map((reagent, i) => ({ reagent, amount: amounts[i], unit: units[i], row: i + 1 }));
+    const problem = prepareProblem(buildContents(rows, volumeL), temperatureC, 'davies');
+    shift?.(problem);
+    return solve(problem).pH;
+  };
+  test.each(CASES)('%s', (...c) => {
+    const [, reagents, amounts, units, volumeL, temperatureC, amountTol] = c;
+    const b = uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), volumeL, temperatureC, null, amountTol.map((t) => [t]), 0, 0);
+    const close = (analytic: number, numeric: number) => expect(Math.abs(analytic - numeric)).toBeLessThan(1e-5 * Math.max(1, Math.abs(numeric)) + 1e-7);
+    amounts.forEach((a, i) => {
+      const h = a * 1e-5;
+      const up = [...amounts]; up[i] = a + h;
+      const down = [...amounts]; down[i] = a - h;
+      close(b.lines[i].sensitivity, (solvePH(reagents, up, units, volumeL, temperatureC) - solvePH(reagents, down, units, volumeL, temperatureC)) / (2 * h));
+    });
+    const vLine = b.lines.find((l) => l.input === 'final volume')!;
+    const hv = volumeL * 1e-5;
+    close(vLine.sensitivity, (solvePH(reagents, amounts, units, volumeL + hv, temperatureC) - solvePH(reagents, amounts, units, volumeL - hv, temperatureC)) / (2 * hv));
+    const tLine = b.lines.find((l) => l.input === 'temperature')!;
+    close(tLine.sensitivity, (solvePH(reagents, amounts, units, volumeL, temperatureC + 0.01) - solvePH(reagents, amounts, units, volumeL, temperatureC - 0.01)) / 0.02);
+    const pKaLines = b.lines.filter((l) => l.input.startsWith('pKa '));
+    let n = 0;
+    const problem = prepareProblem(buildContents(reagents.map((reagent, i) => ({ reagent, amount: amounts[i], unit: units[i], row: i + 1 })), volumeL), temperatureC, 'davies');
+    problem.systems.forEach((s, i) => s.system.steps.forEach((_, k) => {
+      const shifted = (d: number) => solvePH(reagents, amounts, units, volumeL, temperatureC, (p) => shiftConstants(p, p.systems.map((_, j) => (j === i ? s.system.steps.map((__, m) => (m === k ? d : 0)) : [])), 0));
+      close(pKaLines[n++].sensitivity, (shifted(1e-4) - shifted(-1e-4)) / 2e-4);
+    }));
+    const w = b.lines.find((l) => l.input === 'pKw')!;
+    const kw = (d: number) => solvePH(reagents, amounts, units, volumeL, temperatureC, (p) => shiftConstants(p, [], d));
+    close(w.sensitivity, (kw(1e-4) - kw(-1e-4)) / 2e-4);
+  });
+});
