@@ -89,7 +89,7 @@ function mixture(r: Rand, models: readonly string[]): Mixture {
 function titrantCase(r: Rand, models: readonly string[], withFinalVolume: boolean): Case {
   const m = mixture(r, models);
   const titrant = pick(r, TITRANTS);
-  const dispensed = /\bM\b|%/.test(titrant);
+  const dispensed = /\bM\b|%|glacial/.test(titrant);
   const finalVolumeL = withFinalVolume && r() < 0.3 ? m.volumeL * between(r, 1.05, 3) : undefined;
   // a target anywhere in 1–13, or a step from the starting pH the way the titrant drives it
   const startPH = startValue(() => impl.ph(m.reagents, m.amounts, m.units, m.volumeL, m.temperatureC, m.model) as number);
@@ -172,8 +172,17 @@ export function withinTolerance(kind: Kind, target: number, value: number): bool
 
 export interface Outcome { verdict: Verdict; answer?: unknown; value?: number; detail: string }
 
-const fns = impl as unknown as Record<string, (...a: unknown[]) => unknown>;
-const FUNCTION_OF: Record<Kind, string> = { titrant: 'titrant', recipe: 'recipe', saltdose: 'saltDose' };
+type Fn = (...a: unknown[]) => unknown;
+/** SALTDOSE lives in its own module; on a version without it, its cases report as internal errors. */
+function saltDoseFunction(): Fn {
+  try {
+    // eslint-disable-next-line @typescript-eslint/no-require-imports
+    return (require('../src/functions/saltdose') as { saltDose: Fn }).saltDose;
+  } catch {
+    return () => { throw new Error('SALTDOSE is not in this version'); };
+  }
+}
+const FUNCTIONS: Record<Kind, Fn> = { titrant: impl.titrant as Fn, recipe: impl.recipe as Fn, saltdose: saltDoseFunction() };
 
 /** The forward value of a fed-back mixture through the cell functions (impl, no spreadsheet). */
 export function forward(kind: Kind, rows: NonNullable<ReturnType<Case['feedBack']>>, c: Case): number {
@@ -185,7 +194,7 @@ export function forward(kind: Kind, rows: NonNullable<ReturnType<Case['feedBack'
 export function runCase(c: Case): Outcome {
   let answer: unknown;
   try {
-    answer = fns[FUNCTION_OF[c.kind]](...c.args);
+    answer = FUNCTIONS[c.kind](...c.args);
   } catch (e) {
     if (e instanceof ProticError) return { verdict: 'refused', detail: e.failure.code };
     return { verdict: 'internal', detail: String(e) };

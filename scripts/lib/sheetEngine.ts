@@ -4,6 +4,7 @@
 import { ArraySize, CellError, DetailedCellError, EmptyValue, ErrorType, FunctionArgumentType, FunctionPlugin, HyperFormula, SimpleRangeValue } from 'hyperformula';
 import type { RawCellContent } from 'hyperformula';
 import * as impl from '../../src/functions/impl';
+import { saltDose } from '../../src/functions/saltdose';
 import { toCellFailure } from '../../src/functions/outcome';
 
 type Impl = (...args: unknown[]) => unknown;
@@ -18,7 +19,7 @@ interface ProticFunction {
 
 export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'PHMIX', fn: impl.ph as Impl, arity: [3, 6] },
-  { name: 'TITRANT', fn: impl.titrant as Impl, arity: [6, 9] },
+  { name: 'TITRANT', fn: impl.titrant as Impl, arity: [6, 10] },
   { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 2] },
   { name: 'FRACTIONS', fn: impl.fractions as Impl, arity: [2, 4], fallback: [1, 7] },
   { name: 'SPECIES', fn: impl.species as Impl, arity: [3, 6], fallback: [40, 5] },
@@ -27,7 +28,8 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'IONICSTRENGTH', fn: impl.ionicStrength as Impl, arity: [3, 6] },
   { name: 'CAPACITY', fn: impl.capacity as Impl, arity: [3, 6] },
   { name: 'PKA', fn: impl.pka as Impl, arity: [2, 4] },
-  { name: 'RECIPE', fn: impl.recipe as Impl, arity: [5, 10], fallback: [2, 2] },
+  { name: 'RECIPE', fn: impl.recipe as Impl, arity: [5, 10], fallback: [2, 3] },
+  { name: 'SALTDOSE', fn: saltDose as Impl, arity: [6, 9] },
   { name: 'MOLARMASS', fn: impl.molarMass as Impl, arity: [1, 1] },
   { name: 'VERSION', fn: impl.version as Impl, arity: [0, 0] },
 ];
