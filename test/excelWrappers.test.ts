@@ -38,6 +38,6 @@ describe('the Excel wrappers', () => {
     expect(e.message).toMatch(/other side/);
   });
   test('every contract function is exported for association', () => {
-    expect(Object.keys(EXCEL_FUNCTIONS).sort()).toEqual(['CAPACITY', 'CONSTANTS', 'CURVE', 'FRACTIONS', 'IONICSTRENGTH', 'MOLARMASS', 'PHMIX', 'PKA', 'RECIPE', 'SPECIES', 'TITRANT', 'VERSION', 'WARNINGS']);
+    expect(Object.keys(EXCEL_FUNCTIONS).sort()).toEqual(['CAPACITY', 'CONSTANTS', 'CURVE', 'FRACTIONS', 'IONICSTRENGTH', 'MOLARMASS', 'PHMIX', 'PKA', 'RECIPE', 'SALTDOSE', 'SPECIES', 'TITRANT', 'VERSION', 'WARNINGS']);
   });
 });

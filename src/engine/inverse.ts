@@ -58,9 +58,10 @@ export function solveInverse(p: InverseProblem): InverseOutcome {
   if (!(p.limit > 0) || !Number.isFinite(p.limit)) throw new Error(`inverse limit must be finite and above zero, got ${p.limit}`);
   const points: Point[] = [];
   if (p.guess !== undefined && p.guess > 0 && p.guess <= p.limit) {
-    const g = at(p.guess);
-    if (Math.abs(miss(g)) <= aim) return done(g);
-    points.push(g);
+    // a guess where the forward solve does not converge is only dropped: the bracket does without it
+    const g = tryAt(p.guess, at);
+    if (g && Math.abs(miss(g)) <= aim) return done(g);
+    if (g) points.push(g);
   }
   const zero: Point = p.atZero !== undefined ? { amount: 0, value: p.atZero } : at(0);
   if (Math.abs(miss(zero)) <= aim) return done(zero);
@@ -105,7 +106,7 @@ const BACK_OFF_STEPS = 40;
  */
 function topPoint(p: InverseProblem, at: (amount: number) => Point): Point {
   let firstFailure: unknown;
-  for (let k = 0, amount = p.limit; k < BACK_OFF_STEPS; k++, amount /= 2) {
+  for (let attempt = 0, amount = p.limit; attempt < BACK_OFF_STEPS; attempt++, amount /= 2) {
     try {
       return at(amount);
     } catch (error) {

@@ -135,9 +135,9 @@ function linearGuess(targetPH: number, contents: Contents, spec: ReagentSpec, te
 }
 
 const LIMIT_TEXT: Record<TitrantLimitReason, string> = {
-  component: `up to the ${MAX_COMPONENT_M} mol/L limit of a component`,
-  'final volume': 'as much as fits in the final volume',
-  practical: `up to ${MAX_TITRANT_VOLUME_RATIO} times the mixture's volume of it`,
+  component: `with as much as the ${MAX_COMPONENT_M} mol/L limit of a component allows`,
+  'final volume': 'with as much as fits in the final volume',
+  practical: `with up to ${MAX_TITRANT_VOLUME_RATIO} times the mixture's volume added`,
 };
 
 /**
@@ -173,7 +173,7 @@ export function titrantForTarget(targetPH: number, contents: Contents, spec: Rea
   const made = finalVolumeL === undefined ? '' : ` made up to ${finalVolumeL} L`;
   const reason = wrongWay
     ? `the mixture${made} starts at pH ${startText} and ${name} ${raises ? 'raises' : 'lowers'} it, but the target is on the other side`
-    : `the target lies beyond what ${name} can reach ${outcome.searchedTo < limit.moles ? 'as far as the activity model converges' : LIMIT_TEXT[limit.reason]}${ownPH !== undefined ? `: on its own it has pH ${ownPH.toFixed(2)}` : ''}`;
+    : `the target lies beyond what ${name} can reach ${outcome.searchedTo < limit.moles ? 'with as much as the activity model converges for' : LIMIT_TEXT[limit.reason]}${ownPH !== undefined ? `: on its own it has pH ${ownPH.toFixed(2)}` : ''}`;
   return fail({
     code: 'unreachable_target', argument: 'targetPH', received: `pH ${targetPH}`, reason,
     reachable: { quantity: 'pH', low: outcome.lowest, high: outcome.highest },
