@@ -2,6 +2,7 @@ import { ionicStrengthFactorSlope, lnGammaPerZ2 } from './activity';
 import { chargeBalance, chargeBalanceJacobian } from './chargeBalance';
 import type { BalanceOut, JacobianOut } from './chargeBalance';
 import { fail } from './failure';
+import { fixedPointStart, fixedPointStep } from './fixedPoint';
 import type { Problem } from './problem';
 import { setActivity } from './problem';
 
@@ -195,16 +196,14 @@ function settleActivity(problem: Problem, yStart: number | undefined): number {
   // first guess of the activity correction from the strong ions alone
   let lnGamma = lnGammaZ2For(problem, problem.strongZ2M / 2);
   setActivity(problem, lnGamma);
-  let previous = NaN, lastResidual = 0, damping = 1;
+  let previous = NaN;
+  const search = fixedPointStart();
   for (let iter = 0; iter < 100; iter++) {
     y = solveFixedActivity(problem, y, scratch);
     const residual = lnGammaZ2For(problem, scratch.ionicStrengthM) - lnGamma;
     if (Math.abs(residual) <= LN_GAMMA_TOLERANCE) return y;
-    // a residual that changes sign is an overshooting (at high ionic strength, unstable) fixed point: damp the step
-    if (residual * lastResidual < 0) damping = Math.max(damping / 2, 1 / 64);
-    lastResidual = residual;
     previous = lnGamma;
-    lnGamma += damping * residual;
+    lnGamma = fixedPointStep(search, lnGamma, residual);
     setActivity(problem, lnGamma);
   }
   return fail({ code: 'no_convergence', argument: 'reagents', received: `an ionic strength that did not settle (ln γ/z² still moving from ${previous} to ${lnGamma})`, expected: 'a mixture within the model range' });

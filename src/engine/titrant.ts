@@ -19,6 +19,8 @@ export interface TitrantResult {
   startPH: number;
   /** the pH the forward solve gives with `moles` added: the verification, within 1e-6 of the target */
   pH: number;
+  /** forward solves the inverse took (the verification included; the starting mixture's solve not) */
+  forwardSolves: number;
 }
 
 export interface TitrantOptions {
@@ -165,7 +167,7 @@ export function titrantForTarget(targetPH: number, contents: Contents, spec: Rea
     atZero: finalVolumeL === undefined ? start.pH : undefined,
     guess: linearGuess(targetPH, contents, spec, temperatureC, model, finalVolumeL),
   });
-  if (outcome.found) return { moles: outcome.amount, volumeL: outcome.amount * litresPerMole(spec), startPH: start.pH, pH: outcome.value };
+  if (outcome.found) return { moles: outcome.amount, volumeL: outcome.amount * litresPerMole(spec), startPH: start.pH, pH: outcome.value, forwardSolves: outcome.evaluations };
   const raises = outcome.atLimit > outcome.atZero;
   const startText = outcome.atZero.toFixed(2);
   const wrongWay = raises ? targetPH < outcome.lowest : targetPH > outcome.highest;
