@@ -289,3 +289,35 @@ describe('the engine entry other modules call keeps its signature', () => {
     expect(Math.abs(withTitrant(contents, spec, made.moles, 25, 'davies', 1.5).pH - 7.4)).toBeLessThanOrEqual(1e-6);
   });
 });
+
+describe('hostile input: SALTDOSE in every argument, TITRANT in its finalVolume', () => {
+  // eslint-disable-next-line @typescript-eslint/no-require-imports
+  const { HOSTILE, R, A } = require('../scripts/lib/hostileCases') as typeof import('../scripts/lib/hostileCases');
+  // eslint-disable-next-line @typescript-eslint/no-require-imports
+  const { saltDose } = require('../src/functions/saltdose') as typeof import('../src/functions/saltdose');
+  const outcome = (run: () => unknown): string => {
+    try {
+      const v = run();
+      return typeof v === 'number' && Number.isFinite(v) ? 'number' : `not a finite number: ${String(v)}`;
+    } catch (e) {
+      return e instanceof ProticError ? 'coded' : `untyped: ${String(e)}`;
+    }
+  };
+  test('each result is a finite number or a coded failure', () => {
+    const valid: unknown[] = [0.2, 'NaCl', R, A, 'g', 1, 25, 'davies', 'g'];
+    const bad: string[] = [];
+    for (let at = 0; at < valid.length; at++) {
+      for (const value of HOSTILE) {
+        const args = [...valid];
+        args[at] = value;
+        const o = outcome(() => saltDose(...(args as Parameters<typeof saltDose>)));
+        if (o !== 'number' && o !== 'coded') bad.push(`SALTDOSE argument ${at + 1} = ${String(value).slice(0, 30)}: ${o}`);
+      }
+    }
+    for (const value of HOSTILE) {
+      const o = outcome(() => impl.titrant(7.4, R, A, 'g', 1, '1 M NaOH', 25, 'davies', 'mL', value as never));
+      if (o !== 'number' && o !== 'coded') bad.push(`TITRANT finalVolume = ${String(value).slice(0, 30)}: ${o}`);
+    }
+    expect(bad).toEqual([]);
+  });
+});
