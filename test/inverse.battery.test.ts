@@ -77,7 +77,7 @@ describe('the inverse battery: 20,000 random problems, each answer exact or refu
   });
 
   test('a sample of TITRANT refusals: a dense scan of PHMIX from none to the titrant\'s limit never crosses the target', () => {
-    const refused = outcomes.filter(([c, o]) => c.kind === 'titrant' && o.detail === 'unreachable_target' && c.args.length === 9).filter((_, i) => i % 20 === 0);
+    const refused = outcomes.filter(([c, o]) => c.kind === 'titrant' && o.detail === 'unreachable_target' && o.argument === 'targetPH' && c.args.length === 9).filter((_, i) => i % 20 === 0);
     expect(refused.length).toBeGreaterThan(30);
     const crossings: string[] = [];
     for (const [c] of refused) {
@@ -103,6 +103,62 @@ describe('the inverse battery: 20,000 random problems, each answer exact or refu
       }
     }
     expect(crossings).toEqual([]);
+  });
+});
+
+describe('the inverse battery: RECIPE refusals', () => {
+  test('a sample of RECIPE refusals: a dense scan of PHMIX over the base form\'s share never crosses the target', () => {
+    // the pH refusals; a stock that does not fit in the volume is refused on the concentration, a rule of volumes, not of pH
+    const refused = outcomes.filter(([c, o]) => c.kind === 'recipe' && o.detail === 'unreachable_target' && o.argument === 'targetPH').filter((_, i) => i % 10 === 0);
+    const crossings: string[] = [];
+    let scanned = 0;
+    // shares from 1e-12 to 1 − 1e-12, logarithmic towards both ends
+    const shares = [0, ...Array.from({ length: 40 }, (_, k) => 0.5 * 10 ** (-12 + (12 * k) / 39)), ...Array.from({ length: 39 }, (_, k) => 1 - 0.5 * 10 ** (-(12 * (38 - k)) / 38 - 0)), 1];
+    for (const [c] of refused) {
+      const [acid, base, target, conc, volumeL, t, model, , otherAmounts] = c.args as [string, string, number, number, number, number, string, unknown, number[][]?];
+      const sA = parseReagentSpec(acid, 'acidForm').resolved.reagent.systems[0]?.count ?? 0;
+      const sB = parseReagentSpec(base, 'baseForm').resolved.reagent.systems[0]?.count ?? 0;
+      if (!(sA > 0 && sB > 0)) continue;
+      scanned++;
+      let side = 0;
+      for (const share of shares) {
+        const reagents = [[acid], [base]], amounts = [[(1 - share) * conc * volumeL / sA], [share * conc * volumeL / sB]], units = [['mol'], ['mol']];
+        if (otherAmounts) { reagents.push(['NaCl']); amounts.push([otherAmounts[0][0] * volumeL]); units.push(['mol']); }
+        let pH: number;
+        try {
+          pH = impl.ph(reagents, amounts, units, volumeL, t, model);
+        } catch (e) {
+          if (e instanceof ProticError) continue;
+          throw e;
+        }
+        const s = Math.sign(pH - target);
+        if (side !== 0 && s !== 0 && s !== side) { crossings.push(`${c.label}: crosses near a base share of ${share}`); break; }
+        if (s !== 0) side = s;
+      }
+    }
+    expect(scanned).toBeGreaterThan(50);
+    expect(crossings).toEqual([]);
+  });
+});
+
+describe('the inverse battery: stocks that do not fit', () => {
+  test('equal stocks of one system: a buffer more concentrated than they are is refused, a leaner one never on the volume', () => {
+    let checked = 0;
+    const wrong: string[] = [];
+    for (const [c, o] of outcomes) {
+      if (c.kind !== 'recipe') continue;
+      const [acid, base, , conc] = c.args as [string, string, number, number];
+      const ma = /^([\d.]+) M /.exec(acid), mb = /^([\d.]+) M /.exec(base);
+      if (!ma || !mb || ma[1] !== mb[1]) continue;
+      checked++;
+      const refusedOnVolume = o.verdict === 'refused' && o.argument === 'concentration';
+      // both forms count one of the system per formula unit: the stocks take conc/stockM of the volume at any ratio,
+      // so a richer buffer is refused (on the volume, or on the pH when the forms cannot reach it either) and a leaner one never on the volume
+      const over = conc > Number(ma[1]);
+      if (over ? o.verdict !== 'refused' : refusedOnVolume) wrong.push(`${c.label}: ${o.verdict} ${o.argument ?? ''}`);
+    }
+    expect(checked).toBeGreaterThan(300);
+    expect(wrong).toEqual([]);
   });
 });
 

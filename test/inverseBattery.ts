@@ -170,7 +170,7 @@ export function withinTolerance(kind: Kind, target: number, value: number): bool
   return kind === 'saltdose' ? Math.abs(value - target) <= 1e-9 * target : Math.abs(value - target) <= 1e-6;
 }
 
-export interface Outcome { verdict: Verdict; answer?: unknown; value?: number; detail: string }
+export interface Outcome { verdict: Verdict; answer?: unknown; value?: number; detail: string; /** for a refusal, the argument it names */ argument?: string }
 
 type Fn = (...a: unknown[]) => unknown;
 /** SALTDOSE lives in its own module; on a version without it, its cases report as internal errors. */
@@ -196,7 +196,7 @@ export function runCase(c: Case): Outcome {
   try {
     answer = FUNCTIONS[c.kind](...c.args);
   } catch (e) {
-    if (e instanceof ProticError) return { verdict: 'refused', detail: e.failure.code };
+    if (e instanceof ProticError) return { verdict: 'refused', detail: e.failure.code, argument: e.failure.argument };
     return { verdict: 'internal', detail: String(e) };
   }
   const numbers = c.kind === 'recipe' ? (answer as unknown[][]).map((row) => row[1]) : [answer];
