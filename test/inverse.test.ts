@@ -104,7 +104,17 @@ describe('the issue\'s RECIPE examples', () => {
   test('0.1 M KH2PO4 and K2HPO4 stocks for 0.5 M in 1 L (before: 2,233 mL + 2,676 mL into 1 L): refused with the most concentrated buffer they make', () => {
     const v = evaluateSheet([['=PROTIC.RECIPE("0.1 M KH2PO4","0.1 M K2HPO4",7,0.5,1)']]);
     expect(errorOf(v[0][0]).error).toBe('#N/A');
-    expect(errorOf(v[0][0]).message).toMatch(/the stocks and liquids take 5000 mL, more than the final 1 L.*at most about 0\.1 mol\/L with these stocks at pH 7/);
+    expect(errorOf(v[0][0]).message).toMatch(/the stocks and liquids take 5000 mL, more than the final 1 L.*at most 0\.1 mol\/L with these stocks at pH 7/);
+  });
+
+  test('the most concentrated buffer a refusal quotes is one the stocks make, and a little more is refused', () => {
+    const message = (c: number): string => { try { impl.recipe('1 M HCl', 'Tris', 8, c, 1); return 'fits'; } catch (e) { return (e as Error).message; } };
+    const quoted = Number(/at most ([\d.]+) mol\/L/.exec(message(2))![1]);
+    expect(quoted).toBeGreaterThan(1.5);
+    const lines = impl.recipe('1 M HCl', 'Tris', 8, quoted, 1) as (string | number)[][];
+    expect(lines[0][1] as number).toBeLessThanOrEqual(1000);
+    expect(lines[0][1] as number).toBeGreaterThan(999.5);
+    expect(message(quoted * 1.001)).toMatch(/at most 1\.67 mol\/L/);
   });
 
   test('stocks that fit: mL of each, fed back through PHMIX', () => {

@@ -101,6 +101,17 @@ export function recipeForTarget(
   acid: ReagentSpec, base: ReagentSpec, targetPH: number, concentrationM: number, volumeL: number,
   others: Contents, temperatureC: number, model: ActivityModel,
 ): [RecipeLine, RecipeLine] {
+  const lines = solveRecipe(acid, base, targetPH, concentrationM, volumeL, others, temperatureC, model);
+  checkFits(lines, volumeL, othersVolumeL(others), concentrationM, targetPH,
+    (c) => formsVolumeL(solveRecipe(acid, base, targetPH, c, volumeL, others, temperatureC, model)));
+  return lines;
+}
+
+/** The recipe at the target, verified, without the check that stocks fit in the volume. */
+function solveRecipe(
+  acid: ReagentSpec, base: ReagentSpec, targetPH: number, concentrationM: number, volumeL: number,
+  others: Contents, temperatureC: number, model: ActivityModel,
+): [RecipeLine, RecipeLine] {
   const systemId = acid.resolved.reagent.systems[0]?.systemId ?? base.resolved.reagent.systems[0]?.systemId;
   if (systemId === undefined) {
     fail({ code: 'bad_argument', argument: 'acidForm', received: `${acid.resolved.reagent.name} and ${base.resolved.reagent.name}`, expected: 'at least one form that belongs to an acid system (a buffer substance)' });
@@ -150,21 +161,47 @@ export function recipeForTarget(
     });
   }
   const [x, y] = molesAt(tLo + outcome.amount);
-  const lines: [RecipeLine, RecipeLine] = [recipeLine(acid, x), recipeLine(base, y)];
-  checkFits(lines, others, concentrationM, volumeL, targetPH);
-  return lines;
+  return [recipeLine(acid, x), recipeLine(base, y)];
 }
 
-/** Stocks and liquids must fit in the final volume; if not, the most concentrated buffer they make at this pH. */
-function checkFits(lines: RecipeLine[], others: Contents, concentrationM: number, volumeL: number, targetPH: number): void {
-  const formsL = lines.reduce((sum, l) => sum + (l.unit === 'mL' ? l.amount / 1000 : 0), 0);
-  const othersL = others.rows.reduce((sum, r) => sum + r.volumeL, 0);
+/** Four significant digits, rounded down, so the concentration quoted as "at most" fits. */
+function roundedDown(x: number): number {
+  const unit = 10 ** (Math.floor(Math.log10(x)) - 3);
+  return Number((Math.floor(x / unit) * unit).toPrecision(4));
+}
+
+/** Litres of stock and liquid as sold the forms take. */
+function formsVolumeL(lines: RecipeLine[]): number {
+  return lines.reduce((sum, l) => sum + (l.unit === 'mL' ? l.amount / 1000 : 0), 0);
+}
+
+function othersVolumeL(others: Contents): number {
+  return others.rows.reduce((sum, r) => sum + r.volumeL, 0);
+}
+
+/**
+ * Stocks and liquids must fit in the final volume. If they do not, the refusal names the most
+ * concentrated buffer they make at this pH: the concentration at which they fill the room left,
+ * found on the same recipe solve (the forms' ratio moves a little with the ionic strength).
+ */
+function checkFits(lines: RecipeLine[], volumeL: number, othersL: number, concentrationM: number, targetPH: number,
+  volumeAt: (concentrationM: number) => number): void {
+  const formsL = formsVolumeL(lines);
   if (formsL + othersL <= volumeL * (1 + 1e-9)) return;
-  // at this pH the forms' volume grows in proportion to the concentration (closely: the ratio moves a little with ionic strength)
-  const most = Math.max(0, volumeL - othersL) / formsL * concentrationM;
+  const roomL = Math.max(0, volumeL - othersL);
+  let most: string;
+  try {
+    const outcome = roomL > 0 ? solveInverse({ forward: (c) => (c === 0 ? 0 : volumeAt(c)), limit: concentrationM, target: roomL, tolerance: 1e-9 * roomL,
+      atZero: 0, guess: (roomL / formsL) * concentrationM, quantity: 'stock volume', argument: 'concentration' }) : undefined;
+    most = outcome?.found ? `at most ${roundedDown(outcome.amount)} mol/L` : `at most about ${Number(((roomL / formsL) * concentrationM).toPrecision(3))} mol/L`;
+  } catch (error) {
+    // a leaner recipe that itself fails (its pH out of reach): fall back to the proportional estimate
+    if (!(error instanceof ProticError)) throw error;
+    most = `at most about ${Number(((roomL / formsL) * concentrationM).toPrecision(3))} mol/L`;
+  }
   fail({
     code: 'unreachable_target', argument: 'concentration', received: `${concentrationM} mol/L`,
-    reason: `the stocks and liquids take ${Number((formsL * 1000).toPrecision(4))} mL${othersL > 0 ? ` (and the other reagents ${Number((othersL * 1000).toPrecision(4))} mL)` : ''}, more than the final ${volumeL} L`,
-    expected: `at most about ${Number(most.toPrecision(3))} mol/L with these stocks at pH ${targetPH}, more concentrated stocks, or solids`,
+    reason: `the stocks and liquids take ${Number((formsL * 1000).toPrecision(6))} mL${othersL > 0 ? ` (and the other reagents ${Number((othersL * 1000).toPrecision(4))} mL)` : ''}, more than the final ${volumeL} L`,
+    expected: `${most} with these stocks at pH ${targetPH}, more concentrated stocks, or solids`,
   });
 }
