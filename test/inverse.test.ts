@@ -6,7 +6,9 @@ import {
 } from '../src/engine';
 import { prepareTarget, reagentVector } from '../src/engine/linearTarget';
 import * as impl from '../src/functions/impl';
+import { A, HOSTILE, R } from '../scripts/lib/hostileCases';
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
+import { saltDose } from '../src/functions/saltdose';
 import type { SheetValue } from '../scripts/lib/sheetEngine';
 
 // Every amount TITRANT, RECIPE and SALTDOSE return is fed back here through the spreadsheet engine
@@ -301,10 +303,6 @@ describe('the engine entry other modules call keeps its signature', () => {
 });
 
 describe('hostile input: SALTDOSE in every argument, TITRANT in its finalVolume', () => {
-  // eslint-disable-next-line @typescript-eslint/no-require-imports
-  const { HOSTILE, R, A } = require('../scripts/lib/hostileCases') as typeof import('../scripts/lib/hostileCases');
-  // eslint-disable-next-line @typescript-eslint/no-require-imports
-  const { saltDose } = require('../src/functions/saltdose') as typeof import('../src/functions/saltdose');
   const outcome = (run: () => unknown): string => {
     try {
       const v = run();
