@@ -14,6 +14,7 @@ import { benchStock } from './bench/stock';
 import { browserBench } from './bench/browser';
 import { benchXlsx } from './bench/xlsx';
 import { qaBench } from './bench/qa';
+import { inverseBench } from './bench/inverse';
 
 const MIXTURES: Record<string, MixtureRow[]> = {
   'one-system buffer (phosphate)': [
@@ -145,6 +146,7 @@ async function main(): Promise<void> {
   const browser = await browserBench();
   const xlsx = await benchXlsx();
   const qa = qaBench();
+  const inverse = inverseBench();
   const meanEvaluations = Object.values(engine).reduce((s, e) => s + e.evaluationsPerSolve, 0) / Object.keys(engine).length;
   const results = {
     date: new Date().toISOString(),
@@ -158,6 +160,7 @@ async function main(): Promise<void> {
     browser: browser.figures,
     xlsxVerify: xlsx.results,
     uncertainty: qa.results,
+    inverse: inverse.results,
     targets: {
       evaluationsPerSolveAtMost6: meanEvaluations <= 6,
       solveWithin10Evaluations: Object.values(engine).every((e) => e.solveOverEvaluation <= 10),
@@ -168,6 +171,7 @@ async function main(): Promise<void> {
       ...browser.figures.targets,
       xlsxVerifyAtLeast2000CellsPerSecond: xlsx.results.cellsPerSecond >= 2000,
       ...qa.targets,
+      titrantWithin15xOfOneSolve: inverse.results.titrantWithin15x,
     },
   };
   const lines = [
@@ -192,6 +196,8 @@ async function main(): Promise<void> {
     ...xlsx.lines,
     '',
     ...qa.lines,
+    '',
+    ...inverse.lines,
     '',
     `targets met: ${Object.entries(results.targets).map(([k, v]) => `${k} ${v ? 'yes' : 'NO'}`).join(', ')}`,
   ];

@@ -15,7 +15,7 @@ const read = readerFor(ORIGIN, out);
 
 const CONTRACT: Record<string, string[]> = {
   PHMIX: ['reagents', 'amounts', 'units', 'volume', 'temperature', 'model'],
-  TITRANT: ['targetPH', 'reagents', 'amounts', 'units', 'volume', 'titrant', 'temperature', 'model', 'resultUnit'],
+  TITRANT: ['targetPH', 'reagents', 'amounts', 'units', 'volume', 'titrant', 'temperature', 'model', 'resultUnit', 'finalVolume'],
   CURVE: ['reagents', 'amounts', 'units', 'volume', 'titrant', 'maxAmount', 'points', 'temperature', 'model', 'resultUnit'],
   FRACTIONS: ['system', 'pH', 'temperature', 'ionicStrength'],
   SPECIES: ['reagents', 'amounts', 'units', 'volume', 'temperature', 'model'],
@@ -25,6 +25,7 @@ const CONTRACT: Record<string, string[]> = {
   CAPACITY: ['reagents', 'amounts', 'units', 'volume', 'temperature', 'model'],
   PKA: ['system', 'step', 'temperature', 'ionicStrength'],
   RECIPE: ['acidForm', 'baseForm', 'targetPH', 'concentration', 'volume', 'temperature', 'model', 'otherReagents', 'otherAmounts', 'otherUnits'],
+  SALTDOSE: ['targetIonicStrength', 'salt', 'reagents', 'amounts', 'units', 'volume', 'temperature', 'model', 'resultUnit'],
   MOLARMASS: ['formula'],
   VERSION: [],
 };

@@ -82,7 +82,7 @@ describe('invariants at every solution', () => {
     const pairs: [string, string, number, number][] = [
       ['NaH2PO4·H2O', 'Na2HPO4·7H2O', 6.0, 8.0], ['citric acid monohydrate', 'trisodium citrate dihydrate', 3.2, 6.0],
       ['acetic acid', 'sodium acetate trihydrate', 3.9, 5.5], ['Tris hydrochloride', 'Tris', 7.2, 8.8], ['HEPES', 'HEPES sodium salt', 6.8, 8.2],
-      // liquids as sold, weighed whole: the recipe's grams and the mixture's grams must use the same assay
+      // liquids as sold, measured by volume: the recipe's mL and the mixture's mL must use the same density and assay
       ['phosphoric acid 85%', 'sodium dihydrogen phosphate', 2.5, 3.0], ['glacial acetic acid', 'sodium acetate', 3.9, 5.5],
     ];
     fc.assert(fc.property(fc.constantFrom(...pairs), fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0.005, max: 0.2, noNaN: true }), fc.double({ min: 0, max: 0.2, noNaN: true }), fc.constantFrom(...MODELS), (pair, where, conc, salt, model) => {
@@ -91,8 +91,8 @@ describe('invariants at every solution', () => {
       const others = buildContents([{ reagent: 'NaCl', amount: salt, unit: 'M', row: 1 }], 0.5);
       const lines = recipeForTarget(parseReagentSpec(acidName, 'acidForm'), parseReagentSpec(baseName, 'baseForm'), target, conc, 0.5, others, 25, model);
       const rows = [
-        { reagent: acidName, amount: lines[0].amount, unit: 'g', row: 1 },
-        { reagent: baseName, amount: lines[1].amount, unit: 'g', row: 2 },
+        { reagent: acidName, amount: lines[0].amount, unit: lines[0].unit, row: 1 },
+        { reagent: baseName, amount: lines[1].amount, unit: lines[1].unit, row: 2 },
         { reagent: 'NaCl', amount: salt, unit: 'M', row: 3 },
       ];
       const eq = solve(prepareProblem(buildContents(rows, 0.5), 25, model));

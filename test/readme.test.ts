@@ -22,6 +22,8 @@ function halfUlp(printed: string): number {
 const NUMERIC: [string, string, (v: SheetValue[][]) => SheetValue[]][] = [
   ['=PROTIC.PHMIX(A1:A2,B1:B2,C1:C2,1)', '6.8759', (v) => [v[0][0]]],
   ['=PROTIC.TITRANT(7.4,A1:A2,B1:B2,C1:C2,1,"1 M NaOH")', '13.913', (v) => [v[0][0]]],
+  ['=PROTIC.TITRANT(7.4,A1:A2,B1:B2,C1:C2,0.8,"1 M NaOH",25,"davies","mL",1)', '13.938', (v) => [v[0][0]]],
+  ['=PROTIC.SALTDOSE(0.15,"NaCl",A1:A2,B1:B2,C1:C2,1)', '2.9215', (v) => [v[0][0]]],
   ['=PROTIC.CURVE(A1:A2,B1:B2,C1:C2,1,"1 M NaOH",20,3)', '0, 6.8759 / 10, 7.2280 / 20, 7.8016', (v) => v.slice(0, 3).flatMap((r) => r.slice(0, 2))],
   ['=PROTIC.FRACTIONS("phosphate",7.2)', '4.43e-6, 0.49884, 0.50115, 3.55e-6', (v) => v[0].slice(0, 4)],
   ['=PROTIC.IONICSTRENGTH(A1:A2,B1:B2,C1:C2,1)', '0.10001', (v) => [v[0][0]]],
@@ -41,13 +43,24 @@ describe('README examples evaluate to what the README prints', () => {
     got.forEach((value, i) => expect(Math.abs((value as number) - Number(expected[i]))).toBeLessThanOrEqual(halfUlp(expected[i]) * (1 + 1e-9)));
   });
 
-  test('RECIPE: the forms and their grams', () => {
-    const formula = '=PROTIC.RECIPE("Tris hydrochloride","Tris",8,0.05,0.5)';
-    expect(README).toContain(`\`${formula}\` → Tris hydrochloride 2.2891 g, Tris 1.2689 g`);
+  test.each([
+    ['=PROTIC.RECIPE("Tris hydrochloride","Tris",8,0.05,0.5)', [['Tris hydrochloride', '2.2891', 'g'], ['Tris', '1.2689', 'g']]],
+    ['=PROTIC.RECIPE("hydrochloric acid 37%","Tris",8,0.05,1)', [['hydrochloric acid 37%', '2.4176', 'mL'], ['Tris', '6.0568', 'g']]],
+  ])('RECIPE %s: the forms, their amounts and units', (formula, rows) => {
+    expect(README).toContain(`\`${formula}\` → ${rows.map((r) => r.join(' ')).join(', ')}`);
     const v = evaluate(formula);
-    expect([v[0][0], v[1][0]]).toEqual(['Tris hydrochloride', 'Tris']);
-    expect(Math.abs((v[0][1] as number) - 2.2891)).toBeLessThanOrEqual(halfUlp('2.2891'));
-    expect(Math.abs((v[1][1] as number) - 1.2689)).toBeLessThanOrEqual(halfUlp('1.2689'));
+    rows.forEach(([form, amount, unit], i) => {
+      expect([v[i][0], v[i][2]]).toEqual([form, unit]);
+      expect(Math.abs((v[i][1] as number) - Number(amount))).toBeLessThanOrEqual(halfUlp(amount));
+    });
+  });
+
+  test('TITRANT: a target beyond the titrant is #N/A with the reachable range the README prints', () => {
+    const formula = '=PROTIC.TITRANT(12.5,A1:A2,B1:B2,C1:C2,1,"0.01 M NaOH")';
+    expect(README).toContain(`\`${formula}\` → \`#N/A\` … reachable pH 6.8759 to 11.948.`);
+    const v = evaluate(formula)[0][0] as { error: string; message: string };
+    expect(v.error).toBe('#N/A');
+    expect(v.message).toContain('reachable pH 6.8759 to 11.948.');
   });
 
   test('SPECIES: pH, ionic strength and warning rows', () => {

@@ -7,6 +7,7 @@ import * as impl from '../../src/functions/impl';
 import { uncertainty } from '../../src/functions/uncertainty';
 import { readback } from '../../src/functions/readback';
 import { handcheck } from '../../src/functions/handcheck';
+import { saltDose } from '../../src/functions/saltdose';
 import { toCellFailure } from '../../src/functions/outcome';
 import { stock } from '../../src/functions/stock';
 
@@ -22,7 +23,7 @@ interface ProticFunction {
 
 export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'PHMIX', fn: impl.ph as Impl, arity: [3, 6] },
-  { name: 'TITRANT', fn: impl.titrant as Impl, arity: [6, 9] },
+  { name: 'TITRANT', fn: impl.titrant as Impl, arity: [6, 10] },
   { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 2] },
   { name: 'FRACTIONS', fn: impl.fractions as Impl, arity: [2, 4], fallback: [1, 7] },
   { name: 'SPECIES', fn: impl.species as Impl, arity: [3, 6], fallback: [40, 5] },
@@ -31,7 +32,8 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'IONICSTRENGTH', fn: impl.ionicStrength as Impl, arity: [3, 6] },
   { name: 'CAPACITY', fn: impl.capacity as Impl, arity: [3, 6] },
   { name: 'PKA', fn: impl.pka as Impl, arity: [2, 4] },
-  { name: 'RECIPE', fn: impl.recipe as Impl, arity: [5, 10], fallback: [2, 2] },
+  { name: 'RECIPE', fn: impl.recipe as Impl, arity: [5, 10], fallback: [2, 3] },
+  { name: 'SALTDOSE', fn: saltDose as Impl, arity: [6, 9] },
   { name: 'MOLARMASS', fn: impl.molarMass as Impl, arity: [1, 1] },
   { name: 'VERSION', fn: impl.version as Impl, arity: [0, 0] },
   { name: 'STOCK', fn: stock as Impl, arity: [4, 5] },

@@ -11,6 +11,16 @@ interface FailureFields {
   expected: string;
 }
 
+/** The range of a target an inverse solve can reach, for an `unreachable_target` message. */
+export interface ReachableRange {
+  /** what the target is: `pH`, `ionic strength` */
+  quantity: string;
+  low: number;
+  high: number;
+  /** unit after the numbers, e.g. ` mol/L`; none for pH */
+  unit?: string;
+}
+
 export type Failure =
   | (FailureFields & { code: 'unknown_reagent' })
   | (FailureFields & { code: 'ambiguous_reagent' })
@@ -23,7 +33,7 @@ export type Failure =
   | (FailureFields & { code: 'shape_mismatch' })
   | (FailureFields & { code: 'missing_volume' })
   | (FailureFields & { code: 'out_of_range' })
-  | (FailureFields & { code: 'unreachable_target'; reason: string })
+  | (FailureFields & { code: 'unreachable_target'; reason: string; reachable?: ReachableRange })
   | (FailureFields & { code: 'no_convergence' });
 
 export type FailureCode = Failure['code'];
@@ -50,12 +60,17 @@ const HEADLINES: Record<FailureCode, string> = {
 /** Every failure code, for tests that each one has a message. */
 export const FAILURE_CODES = Object.keys(HEADLINES) as FailureCode[];
 
+function rangeText(r: ReachableRange): string {
+  const n = (x: number): string => String(Number(x.toPrecision(5)));
+  return r.low === r.high ? `${r.quantity} ${n(r.low)}${r.unit ?? ''} only` : `${r.quantity} ${n(r.low)} to ${n(r.high)}${r.unit ?? ''}`;
+}
+
 /** The one place a failure becomes the sentence a user reads. */
 export function describeFailure(failure: Failure): string {
   const where = failure.row === undefined ? failure.argument : `${failure.argument}, row ${failure.row}`;
   const detail =
     failure.code === 'bad_formula' ? ` at character ${failure.position}` :
-    failure.code === 'unreachable_target' ? `: ${failure.reason}` : '';
+    failure.code === 'unreachable_target' ? `: ${failure.reason}${failure.reachable ? `; reachable ${rangeText(failure.reachable)}` : ''}` : '';
   return `${where}: ${HEADLINES[failure.code]}${detail}. Received ${failure.received}; expected ${failure.expected}.`;
 }
 

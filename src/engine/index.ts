@@ -4,14 +4,14 @@ export type { ActivityModel } from './activity';
 export { chargeBalance } from './chargeBalance';
 export type { BalanceOut } from './chargeBalance';
 export { FAILURE_CODES, NOT_AVAILABLE_CODES, ProticError, describeFailure, fail, quote } from './failure';
-export type { Failure, FailureCode } from './failure';
+export type { Failure, FailureCode, ReachableRange } from './failure';
 export { compositionKey, compositionMassGPerMol, looksLikeFormula, molarMassGPerMol, parseFormula, withoutHydrogens } from './formula';
 export type { Composition, ParsedFormula } from './formula';
 export { addReagent, buildContents, cloneContents, molesPerLitreDispensed, parseReagentSpec } from './mixture';
 export type { Contents, MixtureRow, ReagentSpec, RowAudit } from './mixture';
-export { checkSystemRange, lnKaAt, prepareProblem, prepareSystem, setActivity } from './problem';
+export { MAX_COMPONENT_M, checkSystemRange, lnKaAt, prepareProblem, prepareSystem, setActivity } from './problem';
 export type { PreparedSystem, Problem } from './problem';
-export { recipeForTarget } from './recipe';
+export { recipeForTarget, recipeLine } from './recipe';
 export type { RecipeLine } from './recipe';
 export {
   allReagents, allSystems, closestReagentNames, molarMassOfReagent, normaliseName, reagentByName, registryGeneration,
@@ -24,8 +24,13 @@ export { lnGammaZ2For, lnHFromPH, pHFromLnH, solve, solveFixedActivity, starting
 export type { Equilibrium } from './solver';
 export { fractionsAt, systemMoments } from './speciation';
 export { dpKaPerK, pKaAt } from './temperature';
-export { litresPerMole, molesToUnit, titrantForTarget, titrantUnit, unitToMoles, withTitrant } from './titrant';
-export type { TitrantResult } from './titrant';
+export { MAX_TITRANT_VOLUME_RATIO, litresPerMole, molesToUnit, titrantForTarget, titrantLimit, titrantUnit, unitToMoles, withTitrant } from './titrant';
+export type { TitrantLimitReason, TitrantOptions, TitrantResult } from './titrant';
+export { PH_TOLERANCE, solveInverse } from './inverse';
+export type { InverseOutcome, InverseProblem } from './inverse';
+export { iterateActivity } from './targetActivity';
+export { IONIC_STRENGTH_RELATIVE_TOLERANCE, saltForIonicStrength } from './saltDose';
+export type { SaltDoseResult } from './saltDose';
 export { UNIT_LIST, findUnit, parseUnit, splitMassStock, splitStock } from './units';
 export type { Unit, UnitKind } from './units';
 export { WATER_RANGE_C, WATER_SOURCES, checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL, waterPermittivity } from './water';

@@ -1,17 +1,15 @@
 import type { Reagent } from '../catalogue';
 import type { ActivityModel } from './activity';
-import { chargeBalance } from './chargeBalance';
-import type { BalanceOut } from './chargeBalance';
 import { cloneContents } from './mixture';
 import type { Contents } from './mixture';
-import { prepareProblem, setActivity, updateIonSums } from './problem';
+import { prepareProblem, updateIonSums } from './problem';
 import type { Problem } from './problem';
-import { lnGammaZ2For, lnHFromPH } from './solver';
+import { lnHFromPH } from './solver';
 import { systemMoments } from './speciation';
 
 // At a fixed pH and fixed activity coefficients the charge balance is linear in the amounts
-// of added reagents, so titrant and recipe problems are solved directly at the target pH,
-// with the ionic strength iterated to self-consistency.
+// of added reagents: this module holds those linear pieces (reagent vectors, their charge at a
+// pH); targetActivity.ts iterates the ionic strength around them.
 
 /** Moles of each system and ion per mole of a reagent, as vectors over a problem's entries. */
 export interface ReagentVector {
@@ -89,36 +87,4 @@ export interface AtTarget {
 export function atTarget(problem: Problem, targetPH: number): AtTarget {
   const lnH = lnHFromPH(problem, targetPH);
   return { lnH, waterChargeM: Math.exp(lnH) - Math.exp(problem.lnKwc - lnH) };
-}
-
-const scratch: BalanceOut = { derivative: 0, ionicStrengthM: 0, chargeScaleM: 0 };
-
-/**
- * Iterates the activity correction: `solveLinear` returns amounts and volume at the current
- * constants; the ionic strength they give sets the next correction. Returns the final amounts.
- */
-export function iterateActivity(
-  target: TargetProblem,
-  targetPH: number,
-  solveLinear: (at: AtTarget) => { amountsMol: number[]; volumeL: number; vectors: ReagentVector[] } | undefined,
-): { amountsMol: number[]; volumeL: number } | undefined {
-  const p = target.problem;
-  let lnGamma = 0;
-  setActivity(p, 0);
-  let last: { amountsMol: number[]; volumeL: number } | undefined;
-  for (let iter = 0; iter < 100; iter++) {
-    const at = atTarget(p, targetPH);
-    const solved = solveLinear(at);
-    if (!solved) return undefined;
-    last = { amountsMol: solved.amountsMol, volumeL: solved.volumeL };
-    if (p.model === 'ideal') return last;
-    // a negative amount means no solution; it is judged by the caller, clamped here so I stays physical
-    setAmounts(target, solved.vectors, solved.amountsMol.map((a) => Math.max(0, a)), Math.max(solved.volumeL, target.baseVolumeL));
-    chargeBalance(p, at.lnH, scratch);
-    const next = lnGammaZ2For(p, scratch.ionicStrengthM);
-    if (Math.abs(next - lnGamma) <= 1e-14) return last;
-    lnGamma = next;
-    setActivity(p, lnGamma);
-  }
-  return last;
 }

@@ -2,6 +2,7 @@ import { ionicStrengthFactorSlope, lnGammaPerZ2 } from './activity';
 import { chargeBalance, chargeBalanceJacobian } from './chargeBalance';
 import type { BalanceOut, JacobianOut } from './chargeBalance';
 import { fail } from './failure';
+import { fixedPointStart, fixedPointStep } from './fixedPoint';
 import type { Problem } from './problem';
 import { setActivity } from './problem';
 
@@ -32,6 +33,8 @@ const scratch: BalanceOut = { derivative: 0, ionicStrengthM: 0, chargeScaleM: 0 
  */
 export function solveFixedActivity(problem: Problem, yStart: number, out: BalanceOut): number {
   let lo = LN_H_MIN, hi = LN_H_MAX;
+  // the bracket holds a root only once each end has been evaluated with the sign it stands for
+  let loSeen = false, hiSeen = false;
   let y = Math.min(Math.max(yStart, lo), hi);
   for (let iter = 0; iter < 200; iter++) {
     const f = chargeBalance(problem, y, out);
@@ -39,13 +42,17 @@ export function solveFixedActivity(problem: Problem, yStart: number, out: Balanc
     const step = -f / out.derivative;
     // converged: `out` already holds this point's derivative and ionic strength
     if (Math.abs(step) < Y_TOLERANCE * Math.max(1, Math.abs(y))) return y;
-    if (f > 0) hi = y; else lo = y;
+    if (f > 0) { hi = y; hiSeen = true; } else { lo = y; loSeen = true; }
     let next = Math.abs(step) <= MAX_STEP_LN ? y + step : y + Math.sign(step) * MAX_STEP_LN;
     if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (hi - lo < Y_TOLERANCE) return next;
+    if (hi - lo < Y_TOLERANCE) {
+      if (loSeen && hiSeen) return next;
+      // collapsed on an edge of the pH range: the root lies outside it
+      break;
+    }
     y = next;
   }
-  return fail({ code: 'no_convergence', argument: 'reagents', received: 'a mixture whose charge balance did not converge', expected: 'a mixture within the catalogue ranges; please report this case' });
+  return fail({ code: 'no_convergence', argument: 'reagents', received: 'a mixture whose charge balance has no root between pH −4 and 23 or did not converge', expected: 'a mixture within the catalogue ranges; please report this case' });
 }
 
 /**
@@ -178,6 +185,31 @@ function solveJoint(problem: Problem, yStart: number | undefined): { y: number; 
 }
 
 /**
+ * The fixed-point loop of the bracketed method: the charge balance solved at fixed activity
+ * coefficients, the ionic strength it gives sets the next coefficients, until they agree to
+ * LN_GAMMA_TOLERANCE; otherwise `no_convergence`. Returns ln h with the problem's activity set.
+ */
+function settleActivity(problem: Problem, yStart: number | undefined): number {
+  setActivity(problem, 0);
+  let y = yStart ?? startingLnH(problem);
+  if (problem.model === 'ideal') return solveFixedActivity(problem, y, scratch);
+  // first guess of the activity correction from the strong ions alone
+  let lnGamma = lnGammaZ2For(problem, problem.strongZ2M / 2);
+  setActivity(problem, lnGamma);
+  let previous = NaN;
+  const search = fixedPointStart();
+  for (let iter = 0; iter < 100; iter++) {
+    y = solveFixedActivity(problem, y, scratch);
+    const residual = lnGammaZ2For(problem, scratch.ionicStrengthM) - lnGamma;
+    if (Math.abs(residual) <= LN_GAMMA_TOLERANCE) return y;
+    previous = lnGamma;
+    lnGamma = fixedPointStep(search, lnGamma, residual);
+    setActivity(problem, lnGamma);
+  }
+  return fail({ code: 'no_convergence', argument: 'reagents', received: `an ionic strength that did not settle (ln γ/z² still moving from ${previous} to ${lnGamma})`, expected: 'a mixture within the model range' });
+}
+
+/**
  * Solves the equilibrium: the charge balance in ln h with the ionic strength taken from the
  * speciation itself, self-consistently. A joint Newton step first; if it does not settle, the
  * bracketed Newton in ln h (which cannot fail) inside a fixed-point loop on the ionic strength.
@@ -190,23 +222,7 @@ export function solve(problem: Problem, yStart?: number, method: 'auto' | 'brack
       return { problem, lnH: joint.y, pH: pHFromLnH(problem, joint.y), ionicStrengthM: joint.ionic, residualRelative: Math.abs(joint.f) / joint.scale, evaluations: problem.evaluations - before };
     }
   }
-  let lnGamma = 0;
-  setActivity(problem, 0);
-  let y = yStart ?? startingLnH(problem);
-  if (problem.model !== 'ideal') {
-    // First guess of the activity correction from the strong ions alone.
-    lnGamma = lnGammaZ2For(problem, problem.strongZ2M / 2);
-    setActivity(problem, lnGamma);
-  }
-  for (let iter = 0; iter < 100; iter++) {
-    y = solveFixedActivity(problem, y, scratch);
-    if (problem.model === 'ideal') break;
-    const next = lnGammaZ2For(problem, scratch.ionicStrengthM);
-    if (Math.abs(next - lnGamma) <= LN_GAMMA_TOLERANCE) break;
-    lnGamma = next;
-    setActivity(problem, lnGamma);
-    if (iter === 99) fail({ code: 'no_convergence', argument: 'reagents', received: 'an ionic strength that did not settle', expected: 'a mixture within the model range' });
-  }
+  const y = settleActivity(problem, yStart);
   // the bracketed method may return a midpoint it has not evaluated: evaluate there for the residual
   const f = chargeBalance(problem, y, scratch);
   return {

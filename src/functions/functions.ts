@@ -3,6 +3,7 @@ import { handcheck } from './handcheck';
 import * as impl from './impl';
 import { readback } from './readback';
 import { uncertainty } from './uncertainty';
+import { saltDose } from './saltdose';
 import { toCellFailure } from './outcome';
 import { stock } from './stock';
 import { ensureWorkbookSystems, workbookSystemsReady } from './workbookSystems';
@@ -40,7 +41,7 @@ function PHMIX(reagents: any[][], amounts: any[][], units: any[][], volume?: any
 }
 
 /**
- * Amount of titrant that brings the mixture to a target pH, the titrant's own volume included.
+ * Amount of titrant that brings the mixture to a target pH, checked by a forward solve. volume is the mixture before the titrant (its own volume adds), unlike RECIPE's final volume; with finalVolume the solution is made up to that volume.
  * @customfunction TITRANT
  * @helpurl https://localhost:3000/help.html#titrant
  * @param targetPH Target pH (activity scale).
@@ -52,11 +53,12 @@ function PHMIX(reagents: any[][], amounts: any[][], units: any[][], volume?: any
  * @param [temperature] Temperature, °C (default 25).
  * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
  * @param [resultUnit] Unit of the result: mL (default for solutions), g (default for solids), L µL mg kg mol mmol.
+ * @param [finalVolume] Make the adjusted solution up to this volume, L, as a batch record does (default: no make-up).
  * @returns Amount of titrant in resultUnit.
  */
 function TITRANT(targetPH: number, reagents: any[][], amounts: any[][], units: any[][], volume: number, titrant: string,
-  temperature?: any, model?: any, resultUnit?: any): number {
-  return run(() => impl.titrant(targetPH, reagents, amounts, units, volume, titrant, temperature, model, resultUnit));
+  temperature?: any, model?: any, resultUnit?: any, finalVolume?: any): number {
+  return run(() => impl.titrant(targetPH, reagents, amounts, units, volume, titrant, temperature, model, resultUnit, finalVolume));
 }
 
 /**
@@ -189,24 +191,44 @@ function PKA(system: string, step: number, temperature?: any, ionicStrength?: an
 }
 
 /**
- * Grams of an acid form and a base form to weigh for a buffer of a total concentration at a target pH.
+ * Amounts of an acid form and a base form for a buffer of a total concentration at a target pH, checked by a forward solve. volume is the final volume, unlike TITRANT's volume before titrant.
  * @customfunction RECIPE
  * @helpurl https://localhost:3000/help.html#recipe
  * @param acidForm The acid form, e.g. NaH2PO4·H2O.
  * @param baseForm The base form, e.g. Na2HPO4·7H2O.
  * @param targetPH Target pH (activity scale).
  * @param concentration Total concentration of the buffer system, mol/L.
- * @param volume Final volume, L.
+ * @param volume Final volume, L (everything made up to it).
  * @param [temperature] Temperature, °C (default 25).
  * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
  * @param [otherReagents] Other reagents in the buffer (a salt, say).
  * @param [otherAmounts] Their amounts.
  * @param [otherUnits] Their units.
- * @returns A 2×2 spill: each form and the grams to weigh.
+ * @returns A 2×3 spill: each form, the amount, its unit (g to weigh a solid, mL of a stock or liquid as sold).
  */
 function RECIPE(acidForm: string, baseForm: string, targetPH: number, concentration: number, volume: number, temperature?: any, model?: any,
   otherReagents?: any[][], otherAmounts?: any[][], otherUnits?: any[][]): any[][] {
   return run(() => impl.recipe(acidForm, baseForm, targetPH, concentration, volume, temperature, model, otherReagents, otherAmounts, otherUnits));
+}
+
+/**
+ * Amount of a salt that brings the mixture's equilibrium ionic strength to a target, checked by a forward solve.
+ * @customfunction SALTDOSE
+ * @helpurl https://localhost:3000/help.html#saltdose
+ * @param targetIonicStrength Target ionic strength, mol/L (as IONICSTRENGTH).
+ * @param salt A salt such as NaCl, or a stock such as 4 M NaCl.
+ * @param reagents Reagents of the mixture, one per row.
+ * @param amounts Amount of each reagent.
+ * @param units Unit of each amount: one cell or one per row.
+ * @param volume Final volume, L, salt included.
+ * @param [temperature] Temperature, °C (default 25).
+ * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [resultUnit] Unit of the result: g (default for solids), mL (default for stocks), mg kg mol mmol L µL.
+ * @returns Amount of salt in resultUnit.
+ */
+function SALTDOSE(targetIonicStrength: number, salt: string, reagents: any[][], amounts: any[][], units: any[][], volume: number,
+  temperature?: any, model?: any, resultUnit?: any): number {
+  return run(() => saltDose(targetIonicStrength, salt, reagents, amounts, units, volume, temperature, model, resultUnit));
 }
 
 /**
@@ -315,4 +337,5 @@ export const EXCEL_FUNCTIONS = {
   HANDCHECK,
   UNCERTAINTY,
   STOCK,
+  SALTDOSE,
 };

@@ -151,13 +151,15 @@ function requiredVolume(volume: Cell): number {
 }
 
 export function titrant(targetPH: Cell, reagents: Cell, amounts: Cell, units: Cell, volume: Cell, titrantText: Cell,
-  temperature?: Cell, model?: Cell, resultUnit?: Cell): number {
+  temperature?: Cell, model?: Cell, resultUnit?: Cell, finalVolume?: Cell): number {
   const target = requiredNumber(targetPH, 'targetPH', PH_RULE);
   const m = readMixture(reagents, amounts, units, null, temperature, model);
   const volumeL = requiredVolume(volume);
   const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant', undefined, m.model);
   const unit = titrantUnit(resultUnit, spec, 'resultUnit');
-  const result = titrantForTarget(target, contentsOf(m.rows, volumeL, m.model), spec, m.temperatureC, m.model);
+  // with a final volume the adjusted solution is made up to it; without, the titrant's own volume adds to `volume`
+  const finalVolumeL = optionalNumber(finalVolume ?? null, 'finalVolume', undefined, { ...VOLUME_RULE, expected: 'the volume, in litres, the adjusted solution is made up to' });
+  const result = titrantForTarget(target, contentsOf(m.rows, volumeL, m.model), spec, m.temperatureC, m.model, { finalVolumeL });
   return finite(molesToUnit(result.moles, spec, unit), 'titrant');
 }
 
@@ -228,11 +230,9 @@ export function recipe(acidForm: Cell, baseForm: Cell, targetPH: Cell, concentra
   const others = rows.length > 0 ? contentsOf(rows, volumeL, activityModel) : { systemMoles: new Map(), ionMoles: new Map(), volumeL, rows: [] };
   checkWaterRange(temperatureC);
   const lines = recipeForTarget(acid, base, target, concentrationM, volumeL, others, temperatureC, activityModel);
-  return lines.map((line, i) => {
-    const name = (i === 0 ? acidForm : baseForm) as string;
-    const label = line.unit === 'g' ? name.trim() : `${name.trim()} (mL)`;
-    return [label, finite(line.amount, 'amount')];
-  });
+  // the form as typed (a 1×1 range is read as its one cell), the amount, and its unit: g to weigh, mL to measure
+  const names = [requiredText(acidForm, 'acidForm', ''), requiredText(baseForm, 'baseForm', '')];
+  return lines.map((line, i) => [names[i].trim(), finite(line.amount, 'amount'), line.unit]);
 }
 
 export function molarMass(formula: Cell): number {

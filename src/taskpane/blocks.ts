@@ -32,7 +32,7 @@ type Shape = [rows: number, columns: number];
  * blocks leave exactly this much room (unwritten) below and beside the formula.
  */
 export const SPILL_SHAPES = {
-  RECIPE: (): Shape => [2, 2],
+  RECIPE: (): Shape => [2, 3],
   CURVE: (points: number): Shape => [points, 2],
   FRACTIONS: (formCount: number): Shape => [1, formCount],
   SPECIES: (tableRows: number): Shape => [tableRows, 5],
