@@ -45,26 +45,20 @@ function median(xs: number[]): number {
   return s[Math.floor(s.length / 2)];
 }
 
-const BATCHES = 7;
-const PER_BATCH = 3000;
+const ROUNDS = 15;
+const PER_BATCH = 2000;
 let sink = 0;
+let nextIndex = 1_000_000;
 
-/** µs per item: the median over batches, each batch over inputs never seen before (offset by batch). */
-function timeDistinct<T>(prepare: (index: number) => T, run: (input: T) => void, base: number): number {
-  const out: number[] = [];
-  for (let b = 0; b < BATCHES; b++) {
-    const inputs = Array.from({ length: PER_BATCH }, (_, i) => prepare(base + b * PER_BATCH + i));
-    const t0 = performance.now();
-    for (const input of inputs) run(input);
-    out.push(((performance.now() - t0) * 1000) / PER_BATCH);
-  }
-  return median(out);
-}
-
-let nextBase = 1_000_000;
-function distinctBase(): number {
-  nextBase += BATCHES * PER_BATCH + 1;
-  return nextBase;
+/** µs per item of one batch over inputs never seen before (or over one repeated input). */
+function batchUs<T>(prepare: (index: number) => T, run: (input: T) => void, repeated = false): number {
+  const base = nextIndex;
+  nextIndex += PER_BATCH + 1;
+  const inputs = Array.from({ length: PER_BATCH }, (_, i) => prepare(repeated ? base : base + i));
+  if (repeated) run(inputs[0]);
+  const t0 = performance.now();
+  for (const input of inputs) run(input);
+  return ((performance.now() - t0) * 1000) / PER_BATCH;
 }
 
 export interface NodeFigures {
@@ -72,36 +66,45 @@ export interface NodeFigures {
   distinctUs: Record<Layout, number>;
   hitUs: Record<Layout, number>;
   distinctOverPrepareSolve: Record<Layout, number>;
-  fiveTogether: { phAloneUs: number; fourScalarUs: number; fiveUs: number; speciesSpillBuildingUs: number; fiveAsideSpillOverPh: number };
+  fiveTogether: { phAloneUs: number; fourScalarUs: number; fiveUs: number; speciesSpillBuildingUs: number; fourOverPh: number; fiveAsideSpillOverPh: number };
 }
 
+/**
+ * Every figure is measured once per round, the rounds interleaved, so that load from elsewhere on the
+ * machine falls on all of them alike; each figure is the median over rounds, each ratio the median of
+ * the rounds' own ratios.
+ */
 function nodeFigures(): NodeFigures {
   const ph = (a: Args): void => { sink += impl.ph(...a); };
-  // warm up every path once
-  for (let i = 0; i < 2000; i++) { ph(argsFor('shared', i)); ph(argsFor('per-row', i)); solve(prepareProblem(buildContents(rowsFor(i), 1), 25, 'davies')); }
-  const prepareSolveUs = timeDistinct<Contents>((i) => buildContents(rowsFor(i), 1), (c) => { sink += solve(prepareProblem(c, 25, 'davies')).pH; }, distinctBase());
-  const distinctUs = { shared: timeDistinct((i) => argsFor('shared', i), ph, distinctBase()), 'per-row': timeDistinct((i) => argsFor('per-row', i), ph, distinctBase()) };
-  const hitUs = {} as Record<Layout, number>;
-  for (const layout of ['shared', 'per-row'] as Layout[]) {
-    const index = distinctBase();
-    // the same input every call, each call with the host's own copy of the arguments
-    hitUs[layout] = timeDistinct(() => argsFor(layout, index), ph, 0);
-  }
   const four = (a: Args): void => { sink += impl.ph(...a) + impl.ionicStrength(...a) + impl.capacity(...a) + impl.warnings(...a).length; };
   const five = (a: Args): void => { four(a); sink += impl.species(...a).length; };
-  const phAloneUs = timeDistinct((i) => argsFor('shared', i), ph, distinctBase());
-  const fourScalarUs = timeDistinct((i) => argsFor('shared', i), four, distinctBase());
-  const fiveUs = timeDistinct((i) => argsFor('shared', i), five, distinctBase());
-  // SPECIES on a mixture already solved: its cost beyond a cache hit is the spill it builds
-  const speciesIndex = distinctBase();
-  impl.ph(...argsFor('shared', speciesIndex));
-  const speciesHitUs = timeDistinct(() => argsFor('shared', speciesIndex), (a) => { sink += impl.species(...a).length; }, 0);
-  const speciesSpillBuildingUs = Math.max(0, speciesHitUs - hitUs.shared);
+  const species = (a: Args): void => { sink += impl.species(...a).length; };
+  const shared = (i: number): Args => argsFor('shared', i), perRow = (i: number): Args => argsFor('per-row', i);
+  // warm up every path once
+  for (let i = 0; i < 2000; i++) { five(shared(i)); ph(perRow(i)); solve(prepareProblem(buildContents(rowsFor(i), 1), 25, 'davies')); }
+  const series: Record<string, number[]> = {};
+  const put = (name: string, value: number): number => { (series[name] ??= []).push(value); return value; };
+  for (let round = 0; round < ROUNDS; round++) {
+    const ps = put('prepareSolve', batchUs<Contents>((i) => buildContents(rowsFor(i), 1), (c) => { sink += solve(prepareProblem(c, 25, 'davies')).pH; }));
+    put('distinctShared/ps', put('distinctShared', batchUs(shared, ph)) / ps);
+    put('distinctPerRow/ps', put('distinctPerRow', batchUs(perRow, ph)) / ps);
+    put('hitShared', batchUs(shared, ph, true));
+    put('hitPerRow', batchUs(perRow, ph, true));
+    const alone = put('phAlone', batchUs(shared, ph));
+    put('four/ph', put('four', batchUs(shared, four)) / alone);
+    const all = put('five', batchUs(shared, five));
+    // SPECIES on a mixture already solved: its cost beyond a cache hit is the spill it builds
+    const spill = put('spill', Math.max(0, batchUs(shared, species, true) - batchUs(shared, ph, true)));
+    put('fiveAside/ph', (all - spill) / alone);
+  }
   if (!Number.isFinite(sink)) throw new Error('benchmark sink not finite');
+  const m = (name: string): number => median(series[name]);
   return {
-    prepareSolveUs, distinctUs, hitUs,
-    distinctOverPrepareSolve: { shared: distinctUs.shared / prepareSolveUs, 'per-row': distinctUs['per-row'] / prepareSolveUs },
-    fiveTogether: { phAloneUs, fourScalarUs, fiveUs, speciesSpillBuildingUs, fiveAsideSpillOverPh: (fiveUs - speciesSpillBuildingUs) / phAloneUs },
+    prepareSolveUs: m('prepareSolve'),
+    distinctUs: { shared: m('distinctShared'), 'per-row': m('distinctPerRow') },
+    hitUs: { shared: m('hitShared'), 'per-row': m('hitPerRow') },
+    distinctOverPrepareSolve: { shared: m('distinctShared/ps'), 'per-row': m('distinctPerRow/ps') },
+    fiveTogether: { phAloneUs: m('phAlone'), fourScalarUs: m('four'), fiveUs: m('five'), speciesSpillBuildingUs: m('spill'), fourOverPh: m('four/ph'), fiveAsideSpillOverPh: m('fiveAside/ph') },
   };
 }
 
@@ -189,11 +192,11 @@ export function cellsBench(): { lines: string[]; results: Record<string, unknown
   };
   const f = (x: number, d = 2): string => x.toFixed(d);
   const lines = [
-    'cell layer: PHMIX from Node (KH2PO4 + Na2HPO4 + NaCl varying, 1 L, davies, 25 °C), median of batches of distinct inputs',
+    'cell layer: PHMIX from Node (KH2PO4 + Na2HPO4 + NaCl varying, 1 L, davies, 25 °C), median of 15 interleaved rounds of 2000 calls (ratios: median of each round’s own)',
     `  prepare+solve of the same mixtures (engine alone)        ${f(node.prepareSolveUs)} µs`,
     ...(['shared', 'per-row'] as Layout[]).map((l) => `  PHMIX, ${l.padEnd(7)} layout: distinct ${f(node.distinctUs[l])} µs (${f(node.distinctOverPrepareSolve[l])}× prepare+solve, target ≤ 2), repeated input ${f(node.hitUs[l])} µs (target ≤ 1.5)`),
     `  allocation per call: distinct ${f(allocation.sharedDistinctBytes, 0)} B shared, ${f(allocation.perRowDistinctBytes, 0)} B per-row; repeated ${f(allocation.sharedHitBytes, 0)} B shared, ${f(allocation.perRowHitBytes, 0)} B per-row (collections during measurement: ${allocation.collectionsDuringMeasurement})`,
-    `  one row of PHMIX, IONICSTRENGTH, CAPACITY, WARNINGS: ${f(node.fiveTogether.fourScalarUs)} µs; with SPECIES ${f(node.fiveTogether.fiveUs)} µs, of which SPECIES's spill building ${f(node.fiveTogether.speciesSpillBuildingUs)} µs`,
+    `  one row of PHMIX, IONICSTRENGTH, CAPACITY, WARNINGS: ${f(node.fiveTogether.fourScalarUs)} µs (${f(node.fiveTogether.fourOverPh)}× PHMIX alone); with SPECIES ${f(node.fiveTogether.fiveUs)} µs, of which SPECIES's spill building ${f(node.fiveTogether.speciesSpillBuildingUs)} µs`,
     `  the five together, spill building aside, over PHMIX alone (${f(node.fiveTogether.phAloneUs)} µs): ${f(node.fiveTogether.fiveAsideSpillOverPh)} (target ≤ 2)`,
     `cell layer: ${TABLE_ROWS}-row table in the headless runner against a built-in formula with the same references`,
     ...(['shared', 'per-row'] as Layout[]).map((l) => `  ${l.padEnd(7)} layout: PHMIX ${f(runner[l].phSeconds)} s (${f(runner[l].phUsPerRow, 1)} µs/row), built-in ${f(runner[l].lnSeconds)} s (${f(runner[l].lnUsPerRow, 1)} µs/row), ratio ${f(runner[l].phOverLn)}${l === 'shared' ? ' (target ≤ 1.5)' : ''}, non-numeric cells ${runner[l].errors}`),

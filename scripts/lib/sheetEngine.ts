@@ -19,7 +19,7 @@ interface ProticFunction {
 export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'PHMIX', fn: impl.ph as Impl, arity: [3, 6] },
   { name: 'TITRANT', fn: impl.titrant as Impl, arity: [6, 9] },
-  { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 2] },
+  { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 3] },
   { name: 'FRACTIONS', fn: impl.fractions as Impl, arity: [2, 4], fallback: [1, 7] },
   { name: 'SPECIES', fn: impl.species as Impl, arity: [3, 6], fallback: [40, 5] },
   { name: 'CONSTANTS', fn: impl.constants as Impl, arity: [3, 6], fallback: [30, 5] },

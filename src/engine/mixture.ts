@@ -120,7 +120,18 @@ export function addReagent(contents: Contents, reagent: Reagent, moles: number):
  * concentrations) the volumes are added (additive-volume assumption).
  */
 export function buildContents(rows: MixtureRow[], volumeL: number | undefined): Contents {
-  const parsed = rows.map((row) => ({ row, spec: parseReagentSpec(row.reagent, 'reagents', row.row), unit: parseUnit(row.unit, 'units', row.row) }));
+  return contentsFromParsed(rows.map((row) => ({ row, spec: parseReagentSpec(row.reagent, 'reagents', row.row), unit: parseUnit(row.unit, 'units', row.row) })), volumeL);
+}
+
+/** A row whose reagent text and unit are already parsed (the cell layer parses a column once for a whole table). */
+export interface ParsedRow {
+  row: MixtureRow;
+  spec: ReagentSpec;
+  unit: Unit;
+}
+
+/** `buildContents` for rows already parsed, in row order: the same checks, the same failures. */
+export function contentsFromParsed(parsed: ParsedRow[], volumeL: number | undefined): Contents {
   let finalVolumeL = volumeL;
   if (finalVolumeL === undefined) {
     const needsVolume = parsed.find((p) => p.unit.kind === 'mass' || p.unit.kind === 'amount');

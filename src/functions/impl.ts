@@ -1,15 +1,15 @@
 import { ADDIN_VERSION, CATALOGUE_VERSION } from '../catalogue';
 import {
-  apparentPKas, bufferCapacity, buildContents, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
+  apparentPKas, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
   WATER_SOURCES, debyeHuckelA, fractionsAt, looksLikeFormula, modelWarning, pKw, waterDensityKgPerL, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
-  pKaAt, prepareProblem, quote, reagentByName, recipeForTarget, registryGeneration, resolveReagent, resolveSystem, speciesRows, solve,
+  pKaAt, quote, reagentByName, recipeForTarget, resolveReagent, resolveSystem, speciesRows,
   titrantForTarget, titrantUnit, unitToMoles, withTitrant,
 } from '../engine';
-import type { ActivityModel, Contents, Equilibrium, MixtureRow } from '../engine';
 import {
   IONIC_STRENGTH_RULE, PH_RULE, TEMPERATURE_RULE, VOLUME_RULE, mixtureRows, optionalNumber, requiredNumber, requiredText, toMatrix,
 } from './args';
 import type { Cell } from './args';
+import { capacityOf, contentsOf, mixtureEntry, readMixture, warningOf } from './mixtureCache';
 
 // The cell functions as plain TypeScript: Excel's wrappers (functions.ts) and the headless
 // sheet runner call these same implementations. They throw ProticError for bad input.
@@ -17,74 +17,29 @@ import type { Cell } from './args';
 export type CellScalar = number | string;
 export type CellResult = CellScalar | CellScalar[][];
 
-// Parsed mixtures and solved equilibria, keyed on their content, so that a table of cells
-// that repeat a mixture does the parsing and solving once.
-const CACHE_LIMIT = 5000;
-const contentsCache = new Map<string, Contents>();
-const equilibriumCache = new Map<string, Equilibrium>();
-
-function remember<T>(cache: Map<string, T>, key: string, make: () => T): T {
-  const hit = cache.get(key);
-  if (hit !== undefined) return hit;
-  const value = make();
-  if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value as string);
-  cache.set(key, value);
-  return value;
-}
-
-function rowsKey(rows: MixtureRow[], volumeL: number | undefined): string {
-  let key = `${registryGeneration()}|${volumeL}`;
-  for (const r of rows) key += `|${r.reagent}\u0000${r.amount}\u0000${r.unit}\u0000${r.row}`;
-  return key;
-}
-
-interface MixtureArgs {
-  rows: MixtureRow[];
-  volumeL: number | undefined;
-  temperatureC: number;
-  model: ActivityModel;
-}
-
-function readMixture(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, temperature: Cell, model: Cell): MixtureArgs {
-  return {
-    rows: mixtureRows(reagents, amounts, units),
-    volumeL: optionalNumber(volume, 'volume', undefined, VOLUME_RULE),
-    temperatureC: optionalNumber(temperature, 'temperature', 25, TEMPERATURE_RULE),
-    model: parseModel(model),
-  };
-}
-
-function contentsOf(rows: MixtureRow[], volumeL: number | undefined, key = rowsKey(rows, volumeL)): Contents {
-  return remember(contentsCache, key, () => buildContents(rows, volumeL));
-}
-
-function equilibriumOf(m: MixtureArgs): Equilibrium {
-  const mixtureKey = rowsKey(m.rows, m.volumeL);
-  return remember(equilibriumCache, `${mixtureKey}|${m.temperatureC}|${m.model}`,
-    () => solve(prepareProblem(contentsOf(m.rows, m.volumeL, mixtureKey), m.temperatureC, m.model)));
-}
-
 /** The last guard before a number reaches a cell: never NaN or Infinity. */
 function finite(value: number, what: string): number {
   if (!Number.isFinite(value)) fail({ code: 'no_convergence', argument: what, received: String(value), expected: 'a finite result; please report this input' });
   return value;
 }
 
+// The mixture functions share one solved entry per mixture (mixtureCache.ts): beside PHMIX in a row,
+// IONICSTRENGTH, CAPACITY, WARNINGS and SPECIES read and check their arguments, then find it.
 export function ph(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
-  return finite(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model)).pH, 'pH');
+  return finite(mixtureEntry(reagents, amounts, units, volume, temperature, model).eq.pH, 'pH');
 }
 
 export function ionicStrength(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
-  return finite(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model)).ionicStrengthM, 'ionic strength');
+  return finite(mixtureEntry(reagents, amounts, units, volume, temperature, model).eq.ionicStrengthM, 'ionic strength');
 }
 
 export function capacity(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
-  return finite(bufferCapacity(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model))), 'buffer capacity');
+  return finite(capacityOf(mixtureEntry(reagents, amounts, units, volume, temperature, model)), 'buffer capacity');
 }
 
 /** The mixture's model warnings as one text, or "none": a column to keep beside PHMIX in a table. */
 export function warnings(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): string {
-  const warning = modelWarning(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model)));
+  const warning = warningOf(mixtureEntry(reagents, amounts, units, volume, temperature, model));
   return warning === '' ? 'none' : warning;
 }
 
@@ -95,9 +50,9 @@ export const CONSTANTS_HEADER = ['constant', 'step', 'at this temperature, I = 0
  * pH − log10([base]/[acid]) at the mixture's own ionic strength under its model; then pKw, A and the water density.
  */
 export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): CellScalar[][] {
-  const m = readMixture(reagents, amounts, units, volume, temperature, model);
-  const eq = equilibriumOf(m);
+  const eq = mixtureEntry(reagents, amounts, units, volume, temperature, model).eq;
   const p = eq.problem;
+  const m = { temperatureC: p.temperatureC, model: p.model };
   const table: CellScalar[][] = [CONSTANTS_HEADER];
   p.systems.forEach((s) => {
     const alpha = fractionsAt(s.lnCumK, eq.lnH);
@@ -118,11 +73,12 @@ export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: C
 export const SPECIES_HEADER = ['species', 'charge', 'concentration (mol/L)', 'activity coefficient', 'activity'];
 
 export function species(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): CellScalar[][] {
-  const m = readMixture(reagents, amounts, units, volume, temperature, model);
-  const eq = equilibriumOf(m);
+  const entry = mixtureEntry(reagents, amounts, units, volume, temperature, model);
+  const eq = entry.eq;
+  const m = { temperatureC: eq.problem.temperatureC, model: eq.problem.model };
   const table: CellScalar[][] = [SPECIES_HEADER];
   for (const s of speciesRows(eq)) table.push([s.species, s.charge, finite(s.concentrationM, s.species), finite(s.activityCoefficient, s.species), finite(s.activity, s.species)]);
-  const warning = modelWarning(eq);
+  const warning = warningOf(entry);
   table.push(['pH', finite(eq.pH, 'pH'), '', '', '']);
   table.push(['ionic strength (mol/L)', finite(eq.ionicStrengthM, 'ionic strength'), '', '', '']);
   table.push(['charge-balance residual (relative)', finite(eq.residualRelative, 'residual'), '', '', '']);
@@ -164,7 +120,8 @@ export function curve(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, 
   for (let i = 0; i < n; i++) {
     const amount = (max * i) / (n - 1);
     const eq = withTitrant(contents, spec, unitToMoles(amount, spec, unit), m.temperatureC, m.model);
-    out.push([amount, finite(eq.pH, 'pH')]);
+    // the check text: empty inside the model's validity, else the reason (as WARNINGS words it)
+    out.push([amount, finite(eq.pH, 'pH'), modelWarning(eq)]);
   }
   return out;
 }
