@@ -1,5 +1,6 @@
 import { MODEL_LIMIT_MOLAL } from './activity';
 import type { Problem } from './problem';
+import { setActivity } from './problem';
 import type { Equilibrium, JointJacobian } from './solver';
 import { jointJacobian, lnGammaZ2For } from './solver';
 import { fractionsAt } from './speciation';
@@ -50,7 +51,11 @@ const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scal
  */
 export function bufferCapacity(eq: Equilibrium): number {
   const p = eq.problem;
+  // jointJacobian sets the problem's conditional constants; put back the solution's own, so a result
+  // read from this equilibrium afterwards (SPECIES, CONSTANTS) does not depend on whether β came first
+  const solvedLnGammaZ2 = p.lnGammaZ2;
   jointJacobian(p, eq.lnH, lnGammaZ2For(p, eq.ionicStrengthM), joint);
+  setActivity(p, solvedLnGammaZ2);
   // d(ln h, L)/dCb = −J⁻¹ (1, 0): one mol/L of strong-base charge; pH = −(ln h + L − ln ρw)/ln 10
   const det = joint.j11 * joint.j22 - joint.j12 * joint.j21;
   const dy = -joint.j22 / det;

@@ -1,0 +1,146 @@
+import fc from 'fast-check';
+import { applyCustomDefinitions, buildContents, clearCustomDefinitions, prepareProblem, solve } from '../src/engine';
+import * as impl from '../src/functions/impl';
+import { clearMixtureCache, readMixture } from '../src/functions/mixtureCache';
+import { toCellFailure } from '../src/functions/outcome';
+
+// The cell layer: the cache recognises columns and mixtures without ever answering for another
+// mixture, the fast reading refuses exactly what the general path refuses, and no result depends
+// on the order in which cells are calculated.
+
+type Outcome = { value: unknown } | { error: string; message: string };
+
+function outcome(f: () => unknown): Outcome {
+  try {
+    return { value: f() };
+  } catch (e) {
+    const failure = toCellFailure(e);
+    return { error: failure.kind, message: failure.message };
+  }
+}
+
+/** PHMIX the general way, without the cell layer's cache: read, build, solve. */
+function referencePH(reagents: unknown, amounts: unknown, units: unknown, volume: unknown, temperature: unknown, model: unknown): number {
+  const m = readMixture(reagents, amounts, units, volume, temperature, model);
+  return solve(prepareProblem(buildContents(m.rows, m.volumeL), m.temperatureC, m.model)).pH;
+}
+
+describe('the cache never answers for another mixture', () => {
+  beforeEach(() => clearMixtureCache());
+
+  test('a NUL in a reagent text does not collide with the mixture its text spells out', () => {
+    // the old key joined fields with NUL: this text made the second mixture's key equal to the first's
+    const first = () => impl.ph([['NaOH'], ['HCl']], [[1], [2]], [['g'], ['g']], 1);
+    const second = () => impl.ph([[''], ['NaOH\u00001\u0000g\u00001|HCl']], [[null], [2]], [['g'], ['g']], 1);
+    expect(typeof outcome(first)).toBe('object');
+    const a = outcome(first), b = outcome(second);
+    expect(b).not.toEqual(a);
+    expect(b).toEqual(outcome(() => referencePH([[''], ['NaOH\u00001\u0000g\u00001|HCl']], [[null], [2]], [['g'], ['g']], 1, null, null)));
+  });
+
+  test('nor through the contents that CURVE and TITRANT share', () => {
+    const first = () => impl.curve([['NaOH'], ['HCl']], [[1], [2]], [['g'], ['g']], 1, '1 M NaOH', 10, 2);
+    const second = () => impl.curve([[''], ['NaOH\u00001|1:g1|3:HCl']], [[null], [2]], [['g'], ['g']], 1, '1 M NaOH', 10, 2);
+    expect('value' in outcome(first)).toBe(true);
+    const b = outcome(second);
+    expect('error' in b).toBe(true);
+  });
+
+  test('the same texts in new arrays find the same column; a text that differs by one character does not', () => {
+    const a = impl.ph([['KH2PO4', 'Na2HPO4']], [[3.4, 3.55]], [['g', 'g']], 1);
+    const again = impl.ph([['KH2PO4', 'Na2HPO4'].map((t) => t.split('').join(''))], [[3.4, 3.55]], [['g', 'g'].map((t) => t.split('').join(''))], 1);
+    expect(again).toBe(a);
+    const swapped = impl.ph([['Na2HPO4', 'KH2PO4']], [[3.4, 3.55]], [['g', 'g']], 1);
+    expect(swapped).toBe(referencePH([['Na2HPO4', 'KH2PO4']], [[3.4, 3.55]], [['g', 'g']], 1, null, null));
+    expect(swapped).not.toBe(a);
+    const mg = impl.ph([['KH2PO4', 'Na2HPO4']], [[3.4, 3.55]], [['g', 'mg']], 1);
+    expect(mg).toBe(referencePH([['KH2PO4', 'Na2HPO4']], [[3.4, 3.55]], [['g', 'mg']], 1, null, null));
+  });
+
+  test('a catalogue change (custom systems) is not answered from before it', () => {
+    try {
+      expect(outcome(() => impl.ph('buffer Q', 1, 'mmol', 1))).toMatchObject({ error: '#VALUE!' });
+      expect(applyCustomDefinitions({ systems: [{ name: 'Qoate', pKa: [7], charge: 0, forms: [{ name: 'buffer Q', formula: 'C2H4O2', protonsLost: 0 }] }] })).toEqual([]);
+      const withQ = outcome(() => impl.ph('buffer Q', 1, 'mmol', 1));
+      expect(withQ).toEqual(outcome(() => referencePH('buffer Q', 1, 'mmol', 1, null, null)));
+      expect('value' in withQ).toBe(true);
+      clearCustomDefinitions();
+      expect(outcome(() => impl.ph('buffer Q', 1, 'mmol', 1))).toMatchObject({ error: '#VALUE!' });
+    } finally {
+      clearCustomDefinitions();
+    }
+  });
+});
+
+// Cells of a batch-record table as hosts pass them, good and bad, blanks in every spelling.
+const REAGENT_CELLS = ['KH2PO4', 'Na2HPO4', 'NaCl', '1 M HCl', 'Tris', 'no such reagent', '', null, 0, 5, ' ', 'NaCl\u0000'];
+const AMOUNT_CELLS = [3.4, 0, 1.5, 250, null, '', -1, 'x', Infinity, 1e-3];
+const UNIT_CELLS = ['g', 'mg', 'mM', 'mL', 'mmol', '', null, 0, 'Mg', 'furlong'];
+
+const table = fc.record({
+  rows: fc.integer({ min: 1, max: 4 }),
+  cols: fc.integer({ min: 1, max: 2 }),
+  reagents: fc.array(fc.constantFrom(...REAGENT_CELLS), { minLength: 8, maxLength: 8 }),
+  amounts: fc.array(fc.constantFrom(...AMOUNT_CELLS), { minLength: 8, maxLength: 8 }),
+  units: fc.array(fc.constantFrom(...UNIT_CELLS), { minLength: 8, maxLength: 8 }),
+  oneUnit: fc.boolean(),
+  volume: fc.constantFrom(1, 0.25, null, -1, 'a'),
+  temperature: fc.constantFrom(25, 37, null, 200),
+  model: fc.constantFrom(null, 'davies', 'ideal', 'Bates-Guggenheim', 'nope'),
+  amountsWrongShape: fc.boolean(),
+});
+
+function grid<T>(cells: T[], rows: number, cols: number): T[][] {
+  return Array.from({ length: rows }, (_, i) => cells.slice(i * cols, i * cols + cols));
+}
+
+describe('the fast reading accepts and refuses exactly what the general path does', () => {
+  test('random tables, good and bad: the same value or the same coded failure, first call and cached call', () => {
+    fc.assert(fc.property(table, (t) => {
+      const reagents = grid(t.reagents, t.rows, t.cols);
+      const amounts = grid(t.amounts, t.amountsWrongShape ? t.rows + 1 : t.rows, t.cols);
+      const units = t.oneUnit ? [[t.units[0]]] : grid(t.units, t.rows, t.cols);
+      const expected = outcome(() => referencePH(reagents, amounts, units, t.volume, t.temperature, t.model));
+      expect(outcome(() => impl.ph(reagents, amounts, units, t.volume, t.temperature, t.model))).toEqual(expected);
+      expect(outcome(() => impl.ph(reagents, amounts, units, t.volume, t.temperature, t.model))).toEqual(expected);
+      if ('error' in expected) expect(expected.message).not.toMatch(/internal error/);
+    }), { numRuns: 1500, seed: 15 });
+  });
+});
+
+describe('results do not depend on the order cells are calculated', () => {
+  const R = [['KH2PO4'], ['Na2HPO4'], ['NaCl']], A = [[3.4], [3.55], [58.4]], U = [['g'], ['g'], ['g']];
+  const CALLS: [string, () => unknown][] = [
+    ['PHMIX', () => impl.ph(R, A, U, 1, 25, 'bates-guggenheim')],
+    ['IONICSTRENGTH', () => impl.ionicStrength(R, A, U, 1, 25, 'bates-guggenheim')],
+    ['CAPACITY', () => impl.capacity(R, A, U, 1, 25, 'bates-guggenheim')],
+    ['WARNINGS', () => impl.warnings(R, A, U, 1, 25, 'bates-guggenheim')],
+    ['SPECIES', () => impl.species(R, A, U, 1, 25, 'bates-guggenheim')],
+    ['CONSTANTS', () => impl.constants(R, A, U, 1, 25, 'bates-guggenheim')],
+  ];
+  const ORDERS = [[0, 1, 2, 3, 4, 5], [2, 4, 5, 0, 1, 3], [5, 4, 3, 2, 1, 0], [4, 2, 4, 5, 2, 0, 1, 3], [1, 3, 2, 5, 0, 4]];
+
+  function inOrder(order: number[]): Record<string, string> {
+    clearMixtureCache();
+    const out: Record<string, string> = {};
+    for (const i of order) {
+      const [name, call] = CALLS[i];
+      const text = JSON.stringify(call());
+      if (name in out) expect(text).toBe(out[name]); // the same cell computed again later gives the same
+      out[name] = text;
+    }
+    return out;
+  }
+
+  test('every order gives every cell the same value, to the last digit', () => {
+    const first = inOrder(ORDERS[0]);
+    for (const order of ORDERS.slice(1)) expect(inOrder(order)).toEqual(first);
+  });
+
+  test('SPECIES after CAPACITY equals SPECIES before it', () => {
+    clearMixtureCache();
+    const before = JSON.stringify(impl.species(R, A, U, 1, 25, 'bates-guggenheim'));
+    impl.capacity(R, A, U, 1, 25, 'bates-guggenheim');
+    expect(JSON.stringify(impl.species(R, A, U, 1, 25, 'bates-guggenheim'))).toBe(before);
+  });
+});
