@@ -1,4 +1,6 @@
 import fc from 'fast-check';
+import { evaluateSheet } from '../scripts/lib/sheetEngine';
+import type { SheetValue } from '../scripts/lib/sheetEngine';
 import { applyCustomDefinitions, buildContents, clearCustomDefinitions, prepareProblem, solve } from '../src/engine';
 import * as impl from '../src/functions/impl';
 import { clearMixtureCache, readMixture } from '../src/functions/mixtureCache';
@@ -150,5 +152,91 @@ describe('results do not depend on the order cells are calculated', () => {
       impl.capacity(R, A, U, V, T, M);
       expect(JSON.stringify(impl.species(R, A, U, V, T, M))).toBe(before);
     });
+  });
+});
+
+describe('PKA and FRACTIONS take the model a mixture uses', () => {
+  // 0.1 M phosphate buffer with 50 mM NaCl, solved under Bates–Guggenheim (I about 0.16 mol/L, above its range: the
+  // warning says so, and the apparent constants must still agree with the mixture's own)
+  const MIX = [['KH2PO4', 6.8, 'g'], ['Na2HPO4', 7.1, 'g'], ['NaCl', 50, 'mM']];
+  const FORMULAS = [
+    '=PROTIC.CONSTANTS(A1:A3,B1:B3,C1:C3,1,25,"bates-guggenheim")',
+    '=PROTIC.IONICSTRENGTH(A1:A3,B1:B3,C1:C3,1,25,"bates-guggenheim")',
+    '=PROTIC.PHMIX(A1:A3,B1:B3,C1:C3,1,25,"bates-guggenheim")',
+  ];
+
+  test.each(['bates-guggenheim', 'davies', 'ideal'])('PKA at the mixture\'s IONICSTRENGTH under %s is its CONSTANTS apparent value', (model) => {
+    const f = FORMULAS.map((x) => x.replace('bates-guggenheim', model));
+    const v = evaluateSheet([...MIX.map((r) => [...r]), [f[1]], [f[2]], [f[0]]]);
+    const ionic = v[3][0] as number;
+    const pka2 = evaluateSheet([[`=PROTIC.PKA("phosphate",2,25,${ionic},"${model}")`], [`=PROTIC.PKA("phosphate",1,25,${ionic},"${model}")`]]);
+    const step = (k: number): SheetValue[] => v.slice(5).find((r) => r[0] === 'pKa phosphate' && r[1] === k)!;
+    expect(Math.abs((pka2[0][0] as number) - (step(2)[3] as number))).toBeLessThan(1e-9);
+    expect(Math.abs((pka2[1][0] as number) - (step(1)[3] as number))).toBeLessThan(1e-9);
+  });
+
+  test('FRACTIONS at the mixture\'s pH, ionic strength and model are its SPECIES shares', () => {
+    const v = evaluateSheet([...MIX.map((r) => [...r]), [FORMULAS[1]], [FORMULAS[2]], ['=PROTIC.SPECIES(A1:A3,B1:B3,C1:C3,1,25,"bates-guggenheim")']]);
+    const ionic = v[3][0] as number, pH = v[4][0] as number;
+    const rows = v.slice(6).filter((r) => ['H3PO4', 'H2PO4⁻', 'HPO4²⁻', 'PO4³⁻'].includes(r[0] as string));
+    const total = rows.reduce((sum, r) => sum + (r[2] as number), 0);
+    const fr = evaluateSheet([[`=PROTIC.FRACTIONS("phosphate",${pH},25,${ionic},"bates-guggenheim")`]])[0].slice(0, 4) as number[];
+    rows.forEach((r, i) => expect(Math.abs(fr[i] - (r[2] as number) / total)).toBeLessThan(1e-9));
+    // and Davies is not what it used: the default model gives other shares at this ionic strength
+    const davies = evaluateSheet([[`=PROTIC.FRACTIONS("phosphate",${pH},25,${ionic})`]])[0].slice(0, 4) as number[];
+    expect(Math.abs(davies[2] - fr[2])).toBeGreaterThan(1e-3);
+  });
+
+  test('a model that is not one is refused with the choices', () => {
+    const v = evaluateSheet([['=PROTIC.PKA("phosphate",2,25,0.1,"debye")'], ['=PROTIC.FRACTIONS("phosphate",7,25,0.1,"debye")']]);
+    for (const row of v) expect(row[0]).toMatchObject({ error: '#VALUE!', message: expect.stringMatching(/^model: .*davies, bates-guggenheim or ideal/) });
+  });
+});
+
+describe('one ionic-strength unit', () => {
+  test('WARNINGS prints the ionic strength in mol/L, the value IONICSTRENGTH and SPECIES give', () => {
+    const mix = [['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'], ['NaCl', 700, 'mM']];
+    const v = evaluateSheet([...mix.map((r) => [...r]), ['=PROTIC.WARNINGS(A1:A3,B1:B3,C1:C3,1)'], ['=PROTIC.IONICSTRENGTH(A1:A3,B1:B3,C1:C3,1)'], ['=PROTIC.SPECIES(A1:A3,B1:B3,C1:C3,1)']]);
+    const warning = v[3][0] as string, ionic = v[4][0] as number;
+    expect(warning).not.toMatch(/mol\/kg/);
+    expect(warning).toContain(`ionic strength ${ionic.toPrecision(3)} mol/L`);
+    const species = v.slice(6);
+    expect(species.find((r) => r[0] === 'ionic strength (mol/L)')![1]).toBe(ionic);
+    expect(species.find((r) => r[0] === 'warning')![1]).toBe(warning);
+    // the basis the activity model uses is stated where the activities are
+    expect(species.find((r) => r[0] === 'model')![1]).toMatch(/I\/ρw/);
+  });
+});
+
+describe('CURVE carries a check text per point', () => {
+  test('points×3: the third column is WARNINGS of the mixture with that much titrant, empty where it has none', () => {
+    const v = evaluateSheet([['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'], ['=PROTIC.CURVE(A1:A2,B1:B2,C1:C2,1,"10 M NaOH",100,5)']]);
+    const points = v.slice(2, 7);
+    expect(points.every((r) => r.length >= 3 && typeof r[2] === 'string')).toBe(true);
+    for (const [mL, pH, check] of points as [number, number, string][]) {
+      const row = evaluateSheet([['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'], ['10 M NaOH', mL, 'mL'],
+        [`=PROTIC.WARNINGS(A1:A3,B1:B3,C1:C3,${1 + mL / 1000})`], [`=PROTIC.PHMIX(A1:A3,B1:B3,C1:C3,${1 + mL / 1000})`]]);
+      expect(check).toBe(row[3][0] === 'none' ? '' : row[3][0]);
+      expect(Math.abs(pH - (row[4][0] as number))).toBeLessThan(1e-9);
+    }
+    expect(points[0][2]).toBe('');
+    expect(points[4][2]).toMatch(/ionic strength .* mol\/L is above the davies model's range/);
+  });
+});
+
+describe('the sheet runner shows the real failure', () => {
+  test('a 1×1 range reaches the function as Excel passes it, a 1×1 array, and its outcome shows as it is', () => {
+    const v = evaluateSheet([['NaH2PO4·H2O', 'Na2HPO4·7H2O', '=PROTIC.RECIPE(A1:A1,B1:B1,7,0.1,1)']]);
+    const direct = outcome(() => impl.recipe([['NaH2PO4·H2O']], [['Na2HPO4·7H2O']], 7, 0.1, 1));
+    if ('error' in direct) expect(v[0][2]).toEqual({ error: direct.error, message: direct.message });
+    else expect(v[0][2]).toEqual((direct.value as unknown[][])[0][0]);
+    expect(JSON.stringify(v[0][2])).not.toMatch(/reserved/);
+  });
+
+  test('a spill whose sizing failed shows that failure, not a spill-size message', () => {
+    // typed as text "3.4": the call while sizing is refused; HyperFormula later evaluates the cell as the number 3.4
+    const v = evaluateSheet([['KH2PO4', '3.4', 'g', '=PROTIC.SPECIES(A1,B1,C1,1)']]);
+    expect(v[0][3]).toMatchObject({ error: '#VALUE!', message: expect.stringMatching(/amounts, row 1: amount not usable\. Received "3\.4"/) });
+    expect(JSON.stringify(v[0][3])).not.toMatch(/reserved/);
   });
 });

@@ -72,12 +72,14 @@ export function modelWarning(eq: Equilibrium): string {
   const p = eq.problem;
   const warnings: string[] = [];
   const limit = MODEL_LIMIT_MOLAL[p.model];
-  const ionicMolal = eq.ionicStrengthM / Math.exp(p.lnWaterDensity);
+  // the model's range is molal (I/ρw); it is printed in mol/L, the unit of IONICSTRENGTH and SPECIES
+  const rhoW = Math.exp(p.lnWaterDensity);
+  const ionicMolal = eq.ionicStrengthM / rhoW;
   if (p.model !== 'ideal' && ionicMolal > limit) {
-    warnings.push(`ionic strength ${ionicMolal.toPrecision(3)} mol/kg is above the ${p.model} model's range (about ${limit} mol/kg): treat the pH as an estimate`);
+    warnings.push(`ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L is above the ${p.model} model's range (about ${Number((limit * rhoW).toPrecision(3))} mol/L here): treat the pH as an estimate`);
   }
   if (p.model === 'ideal' && ionicMolal > 0.001) {
-    warnings.push(`ideal model at ionic strength ${ionicMolal.toPrecision(3)} mol/kg: activity corrections are ignored`);
+    warnings.push(`ideal model at ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L: activity corrections are ignored`);
   }
   p.systems.forEach((s, i) => {
     const cap = s.system.concentrationLimit;

@@ -84,7 +84,7 @@ export function species(reagents: Cell, amounts: Cell, units: Cell, volume?: Cel
   table.push(['charge-balance residual (relative)', finite(eq.residualRelative, 'residual'), '', '', '']);
   // The basis a reviewer needs to reproduce the activity column: activity = γ·c/ρw (molal).
   const rhoW = Math.exp(eq.problem.lnWaterDensity);
-  table.push(['model', `${m.model}, ${m.temperatureC} °C; activity = γ·c/ρw, ρw ${rhoW.toFixed(6)} kg/L`, '', '', '']);
+  table.push(['model', `${m.model}, ${m.temperatureC} °C; activity = γ·c/ρw, γ from the ionic strength on the molal basis I/ρw, ρw ${rhoW.toFixed(6)} kg/L`, '', '', '']);
   table.push(['warning', warning === '' ? 'none' : warning, '', '', '']);
   return table;
 }
@@ -130,14 +130,15 @@ function temperatureFor(temperature: Cell): number {
   return optionalNumber(temperature, 'temperature', 25, TEMPERATURE_RULE);
 }
 
-export function fractions(system: Cell, pH: Cell, temperature?: Cell, ionicStrengthArg?: Cell): number[][] {
+export function fractions(system: Cell, pH: Cell, temperature?: Cell, ionicStrengthArg?: Cell, model?: Cell): number[][] {
   const sys = resolveSystem(Array.isArray(system) ? toSingle(system) : system);
   const pHValue = requiredNumber(pH, 'pH', PH_RULE);
   const temperatureC = temperatureFor(temperature);
   checkWaterRange(temperatureC);
   checkSystemRange(sys, temperatureC);
   const ionic = optionalNumber(ionicStrengthArg, 'ionicStrength', 0, IONIC_STRENGTH_RULE);
-  return [fractionsAtPH(sys, pHValue, temperatureC, ionic).map((f) => finite(f, 'fraction'))];
+  const activityModel = parseModel(model);
+  return [fractionsAtPH(sys, pHValue, temperatureC, ionic, activityModel).map((f) => finite(f, 'fraction'))];
 }
 
 function toSingle(value: Cell[]): Cell {
@@ -146,7 +147,7 @@ function toSingle(value: Cell[]): Cell {
   return flat[0];
 }
 
-export function pka(system: Cell, step: Cell, temperature?: Cell, ionicStrengthArg?: Cell): number {
+export function pka(system: Cell, step: Cell, temperature?: Cell, ionicStrengthArg?: Cell, model?: Cell): number {
   const sys = resolveSystem(Array.isArray(system) ? toSingle(system) : system);
   const n = sys.steps.length;
   const k = requiredNumber(step, 'step', { min: 1, max: n, integer: true, expected: `a step from 1 to ${n} for ${sys.name} (1 = first proton lost)` });
@@ -154,8 +155,9 @@ export function pka(system: Cell, step: Cell, temperature?: Cell, ionicStrengthA
   checkWaterRange(temperatureC);
   checkSystemRange(sys, temperatureC);
   const ionic = optionalNumber(ionicStrengthArg, 'ionicStrength', 0, IONIC_STRENGTH_RULE);
+  const activityModel = parseModel(model);
   if (ionic === 0) return finite(pKaAt(sys.steps[k - 1], temperatureC), 'pKa');
-  return finite(apparentPKas(sys, temperatureC, ionic)[k - 1], 'pKa');
+  return finite(apparentPKas(sys, temperatureC, ionic, activityModel)[k - 1], 'pKa');
 }
 
 export function recipe(acidForm: Cell, baseForm: Cell, targetPH: Cell, concentration: Cell, volume: Cell, temperature?: Cell, model?: Cell,
