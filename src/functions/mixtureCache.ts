@@ -51,7 +51,7 @@ export function warningOf(entry: MixtureEntry): string {
 
 const ENTRY_LIMIT = 5000;
 const COLUMN_LIMIT = 1000;
-const RECENT_COLUMNS = 4;
+const RECENT_COLUMNS = 8;
 
 /** One reagent or unit range: its cells row by row, and what each parses to (undefined: blank or refused). */
 interface Column<T> {
@@ -140,7 +140,8 @@ function columnFor<T>(s: ColumnStore<T>, value: Cell): Column<T> | undefined {
       parsed.push(p);
     });
     column = { id: nextColumnId++, rows, cols, cells, blank, parsed };
-    if (s.byContent.size >= COLUMN_LIMIT) s.byContent.delete(s.byContent.keys().next().value as string);
+    // full: start again (deleting the oldest one by one leaves holes a Map's iterator must skip on every call)
+    if (s.byContent.size >= COLUMN_LIMIT) s.byContent.clear();
     s.byContent.set(key, column);
   }
   s.recent.unshift(column);
@@ -276,7 +277,7 @@ export function contentsOf(rows: MixtureRow[], volumeL: number | undefined): Con
   const hit = contentsCache.get(key);
   if (hit !== undefined) return hit;
   const value = buildContents(rows, volumeL);
-  if (contentsCache.size >= ENTRY_LIMIT) contentsCache.delete(contentsCache.keys().next().value as string);
+  if (contentsCache.size >= ENTRY_LIMIT) contentsCache.clear();
   contentsCache.set(key, value);
   return value;
 }
