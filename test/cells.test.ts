@@ -96,6 +96,19 @@ function grid<T>(cells: T[], rows: number, cols: number): T[][] {
   return Array.from({ length: rows }, (_, i) => cells.slice(i * cols, i * cols + cols));
 }
 
+describe('an older mixture, its equilibrium no longer kept, gives the same results', () => {
+  test('SPECIES, CAPACITY and WARNINGS of a mixture after 3000 others equal those computed right after it', () => {
+    const R = [['KH2PO4', 'Na2HPO4', 'NaCl']], U = [['g', 'g', 'mM']];
+    const args = (i: number): [unknown, unknown, unknown, number] => [R, [[3.4, 3.55, 1 + i]], U, 1];
+    clearMixtureCache();
+    const fresh = [impl.ph(...args(0)), impl.species(...args(0)), impl.capacity(...args(0)), impl.warnings(...args(0))];
+    clearMixtureCache();
+    const pH = impl.ph(...args(0));
+    for (let i = 1; i <= 3000; i++) impl.ph(...args(i));
+    expect([pH, impl.species(...args(0)), impl.capacity(...args(0)), impl.warnings(...args(0))]).toEqual(fresh);
+  });
+});
+
 describe('the fast reading accepts and refuses exactly what the general path does', () => {
   test('random tables, good and bad: the same value or the same coded failure, first call and cached call', () => {
     fc.assert(fc.property(table, (t) => {

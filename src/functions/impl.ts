@@ -9,7 +9,7 @@ import {
   IONIC_STRENGTH_RULE, PH_RULE, TEMPERATURE_RULE, VOLUME_RULE, mixtureRows, optionalNumber, requiredNumber, requiredText, toMatrix,
 } from './args';
 import type { Cell } from './args';
-import { capacityOf, contentsOf, mixtureEntry, readMixture, warningOf } from './mixtureCache';
+import { capacityOf, contentsOf, equilibriumOf, mixtureEntry, readMixture, warningOf } from './mixtureCache';
 
 // The cell functions as plain TypeScript: Excel's wrappers (functions.ts) and the headless
 // sheet runner call these same implementations. They throw ProticError for bad input.
@@ -26,11 +26,11 @@ function finite(value: number, what: string): number {
 // The mixture functions share one solved entry per mixture (mixtureCache.ts): beside PHMIX in a row,
 // IONICSTRENGTH, CAPACITY, WARNINGS and SPECIES read and check their arguments, then find it.
 export function ph(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
-  return finite(mixtureEntry(reagents, amounts, units, volume, temperature, model).eq.pH, 'pH');
+  return finite(mixtureEntry(reagents, amounts, units, volume, temperature, model).pH, 'pH');
 }
 
 export function ionicStrength(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
-  return finite(mixtureEntry(reagents, amounts, units, volume, temperature, model).eq.ionicStrengthM, 'ionic strength');
+  return finite(mixtureEntry(reagents, amounts, units, volume, temperature, model).ionicStrengthM, 'ionic strength');
 }
 
 export function capacity(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
@@ -50,7 +50,7 @@ export const CONSTANTS_HEADER = ['constant', 'step', 'at this temperature, I = 0
  * pH − log10([base]/[acid]) at the mixture's own ionic strength under its model; then pKw, A and the water density.
  */
 export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): CellScalar[][] {
-  const eq = mixtureEntry(reagents, amounts, units, volume, temperature, model).eq;
+  const eq = equilibriumOf(mixtureEntry(reagents, amounts, units, volume, temperature, model));
   const p = eq.problem;
   const m = { temperatureC: p.temperatureC, model: p.model };
   const table: CellScalar[][] = [CONSTANTS_HEADER];
@@ -74,7 +74,7 @@ export const SPECIES_HEADER = ['species', 'charge', 'concentration (mol/L)', 'ac
 
 export function species(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): CellScalar[][] {
   const entry = mixtureEntry(reagents, amounts, units, volume, temperature, model);
-  const eq = entry.eq;
+  const eq = equilibriumOf(entry);
   const m = { temperatureC: eq.problem.temperatureC, model: eq.problem.model };
   const table: CellScalar[][] = [SPECIES_HEADER];
   for (const s of speciesRows(eq)) table.push([s.species, s.charge, finite(s.concentrationM, s.species), finite(s.activityCoefficient, s.species), finite(s.activity, s.species)]);

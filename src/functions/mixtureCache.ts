@@ -34,18 +34,24 @@ export function readMixture(reagents: Cell, amounts: Cell, units: Cell, volume: 
 
 /** A solved mixture and what the functions beside PHMIX derive from it, each worked out once. */
 export interface MixtureEntry {
-  eq: Equilibrium;
+  pH: number;
+  ionicStrengthM: number;
   capacity?: number;
   warning?: string;
 }
 
+/** The mixture's equilibrium: kept for the most recent mixtures, solved again (to the same bits) for an older one. */
+export function equilibriumOf(entry: MixtureEntry): Equilibrium {
+  return (entry as Entry).equilibrium();
+}
+
 export function capacityOf(entry: MixtureEntry): number {
-  if (entry.capacity === undefined) entry.capacity = bufferCapacity(entry.eq);
+  if (entry.capacity === undefined) entry.capacity = bufferCapacity(equilibriumOf(entry));
   return entry.capacity;
 }
 
 export function warningOf(entry: MixtureEntry): string {
-  if (entry.warning === undefined) entry.warning = modelWarning(entry.eq);
+  if (entry.warning === undefined) entry.warning = modelWarning(equilibriumOf(entry));
   return entry.warning;
 }
 
@@ -149,19 +155,58 @@ function columnFor<T>(s: ColumnStore<T>, value: Cell): Column<T> | undefined {
   return column;
 }
 
-interface Entry extends MixtureEntry {
-  reagentsId: number;
-  unitsId: number;
-  amounts: Float64Array;
-  volumeL: number;
-  temperatureC: number;
-  model: ActivityModel;
+// Two direct-mapped tables, a slot per hash, a new mixture replacing the one in its slot (no Map bookkeeping,
+// nothing to evict in order). The large one holds small entries: the key, pH, ionic strength and, once asked,
+// capacity and warning, so a table's repeated mixtures are found without a solve. The small one holds the full
+// equilibria of the latest mixtures, for SPECIES, CONSTANTS, CAPACITY and WARNINGS beside PHMIX in their row: few
+// enough that they die young, since retaining thousands of solved problems costs the collector more than a solve.
+const SLOTS = 8192;
+const SOLVED_SLOTS = 512;
+
+abstract class Entry implements MixtureEntry {
+  capacity?: number;
+  warning?: string;
+  constructor(public pH: number, public ionicStrengthM: number) {}
+  abstract equilibrium(): Equilibrium;
 }
 
-// A direct-mapped table: a slot per hash, a new mixture replaces the one in its slot. No Map
-// bookkeeping, nothing to evict in order, and a table's repeated rows still find their entry.
-const SLOTS = 8192;
-let slots: (Entry | undefined)[] = new Array(SLOTS).fill(undefined);
+/** A mixture read by the general path: not cached, its equilibrium kept with it. */
+class SolvedEntry extends Entry {
+  constructor(private readonly eq: Equilibrium) { super(eq.pH, eq.ionicStrengthM); }
+  equilibrium(): Equilibrium { return this.eq; }
+}
+
+class CachedEntry extends Entry {
+  constructor(eq: Equilibrium, readonly hash: number, readonly reagents: Column<ReagentSpec>, readonly units: Column<Unit>, readonly amounts: number[],
+    readonly volumeL: number, readonly temperatureC: number, readonly model: ActivityModel) {
+    super(eq.pH, eq.ionicStrengthM);
+  }
+
+  equilibrium(): Equilibrium {
+    const slot = this.hash & (SOLVED_SLOTS - 1);
+    const kept = solvedSlots[slot];
+    if (kept !== undefined && kept.entry === this) return kept.eq;
+    const eq = solveRows(this.reagents, this.units, this.amounts, this.volumeL < 0 ? undefined : this.volumeL, this.temperatureC, this.model);
+    solvedSlots[slot] = { entry: this, eq };
+    return eq;
+  }
+}
+
+let slots: (CachedEntry | undefined)[] = new Array(SLOTS).fill(undefined);
+let solvedSlots: ({ entry: CachedEntry; eq: Equilibrium } | undefined)[] = new Array(SOLVED_SLOTS).fill(undefined);
+
+/** Solves the rows of a reagent column, a unit column and amounts (−1: a blank row), all accepted by the fast reading. */
+function solveRows(rc: Column<ReagentSpec>, uc: Column<Unit>, amounts: ArrayLike<number>, volumeL: number | undefined, temperatureC: number, model: ActivityModel): Equilibrium {
+  const oneUnit = uc.rows === 1 && uc.cols === 1;
+  const parsed: ParsedRow[] = [];
+  for (let k = 0; k < rc.rows * rc.cols; k++) {
+    if (amounts[k] < 0) continue;
+    const u = oneUnit ? 0 : k;
+    parsed.push({ row: { reagent: rc.cells[k] as string, amount: amounts[k], unit: uc.cells[u] as string, row: k + 1 }, spec: rc.parsed[k] as ReagentSpec, unit: uc.parsed[u] as Unit });
+  }
+  return solve(prepareProblem(contentsFromParsed(parsed, volumeL), temperatureC, model));
+}
+
 let amountScratch = new Float64Array(16);
 const hashScratch = new Float64Array(1);
 const hashWords = new Uint32Array(hashScratch.buffer);
@@ -198,6 +243,7 @@ function clearIfCatalogueChanged(): void {
 /** Forgets every column and solved mixture (a catalogue change does this itself). */
 export function clearMixtureCache(): void {
   slots = new Array(SLOTS).fill(undefined);
+  solvedSlots = new Array(SOLVED_SLOTS).fill(undefined);
   contentsCache.clear();
   for (const s of [reagentColumns, unitColumns] as ColumnStore<unknown>[]) { s.recent.length = 0; s.byContent.clear(); }
   generation = -1;
@@ -237,21 +283,19 @@ export function mixtureEntry(reagents: Cell, amounts: Cell, units: Cell, volume:
   h = textHash(mix(mix(h, volumeL ?? -1), temperatureC), activityModel);
   const slot = h & (SLOTS - 1);
   const e = slots[slot];
-  if (e !== undefined && e.reagentsId === rc.id && e.unitsId === uc.id && e.volumeL === (volumeL ?? -1) && e.temperatureC === temperatureC && e.model === activityModel
+  const v = volumeL ?? -1;
+  if (e !== undefined && e.reagents === rc && e.units === uc && e.volumeL === v && e.temperatureC === temperatureC && e.model === activityModel
     && e.amounts.length === n && sameAmounts(e.amounts, scratch, n)) return e;
-  const parsed: ParsedRow[] = [];
-  for (let k = 0; k < n; k++) {
-    if (scratch[k] < 0) continue;
-    const u = oneUnit ? 0 : k;
-    parsed.push({ row: { reagent: rc.cells[k] as string, amount: scratch[k], unit: uc.cells[u] as string, row: k + 1 }, spec: rc.parsed[k] as ReagentSpec, unit: uc.parsed[u] as Unit });
-  }
-  const eq = solve(prepareProblem(contentsFromParsed(parsed, volumeL), temperatureC, activityModel));
-  const entry: Entry = { eq, reagentsId: rc.id, unitsId: uc.id, amounts: scratch.slice(0, n), volumeL: volumeL ?? -1, temperatureC, model: activityModel };
+  const eq = solveRows(rc, uc, scratch, volumeL, temperatureC, activityModel);
+  const kept: number[] = [];
+  for (let k = 0; k < n; k++) kept.push(scratch[k]);
+  const entry = new CachedEntry(eq, h, rc, uc, kept, v, temperatureC, activityModel);
   slots[slot] = entry;
+  solvedSlots[h & (SOLVED_SLOTS - 1)] = { entry, eq };
   return entry;
 }
 
-function sameAmounts(a: Float64Array, b: Float64Array, n: number): boolean {
+function sameAmounts(a: number[], b: Float64Array, n: number): boolean {
   for (let k = 0; k < n; k++) if (a[k] !== b[k]) return false;
   return true;
 }
@@ -259,7 +303,7 @@ function sameAmounts(a: Float64Array, b: Float64Array, n: number): boolean {
 /** Whatever the fast reading leaves: read, checked and solved the general way (not cached; it raises the failures). */
 function generalPath(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, temperature: Cell, model: Cell): MixtureEntry {
   const m = readMixture(reagents, amounts, units, volume, temperature, model);
-  return { eq: solve(prepareProblem(contentsOf(m.rows, m.volumeL), m.temperatureC, m.model)) };
+  return new SolvedEntry(solve(prepareProblem(contentsOf(m.rows, m.volumeL), m.temperatureC, m.model)));
 }
 
 // Contents of a mixture for TITRANT, CURVE and RECIPE, keyed on its rows: each text is written
