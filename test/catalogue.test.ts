@@ -1,5 +1,6 @@
 import { ACID_SYSTEMS, AMBIGUOUS_NAMES, REAGENTS, strongIonById } from '../src/catalogue';
 import { compositionKey, dpKaPerK, molarMassOfReagent, parseFormula, pKaAt, reagentByName, resolveReagent } from '../src/engine';
+import { expectMissWithin } from './helpers';
 
 describe('catalogue consistency', () => {
   test.each(ACID_SYSTEMS.map((s) => [s.id, s] as const))('%s: forms, steps and sources', (_, s) => {
@@ -89,9 +90,10 @@ describe('catalogue consistency', () => {
 
   // Finding: ΔrH° 20.4 kJ/mol (from memory) gives −0.012 /K, against the −0.014 /K commonly quoted. The same
   // catalogue gives ACES and CHES slopes that match Harned-cell fits (reference.pka), so the common figure is suspect.
-  test.failing('known miss: hepes dpKa/dT −0.014 /K (common practice)', () => {
+  // Measured: −0.011987 /K, a miss of +0.00201 against the 0.002 bound; the band keeps it a miss.
+  test('known miss: hepes dpKa/dT −0.014 /K (common practice), measured miss +0.00201 ± 0.000005', () => {
     const s = ACID_SYSTEMS.find((x) => x.id === 'hepes')!;
-    expect(Math.abs(dpKaPerK(s.steps[0], 25) + 0.014)).toBeLessThan(0.002);
+    expectMissWithin(dpKaPerK(s.steps[0], 25) + 0.014, 0.00201, 0.000005);
   });
 
   test('pKa at the reference temperature is the catalogue value', () => {

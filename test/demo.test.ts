@@ -17,8 +17,8 @@ describe('the bundled examples', () => {
 
 describe('model validity', () => {
   test.each([
-    ['davies', 0.8, /above the Davies model's range \(about 0.5 mol\/kg\)/],
-    ['bates-guggenheim', 0.3, /above the Bates–Guggenheim model's range \(about 0.1 mol\/kg\)/],
+    ['davies', 0.8, /above the Davies model's range \(about 0\.499 mol\/L here\)/],
+    ['bates-guggenheim', 0.3, /above the Bates–Guggenheim model's range \(about 0\.0997 mol\/L here\)/],
   ])('SPECIES warns above the %s range but still returns a number', (model, nacl, pattern) => {
     const table = species([['KH2PO4'], ['Na2HPO4'], ['NaCl']], [[0.025], [0.025], [nacl]], 'M', null, 25, model);
     const warning = table.find((r) => r[0] === 'warning') as (string | number)[];
@@ -60,7 +60,7 @@ describe('model validity', () => {
     }
   });
   test('warnings join: a binding warning and an ionic-strength warning together', () => {
-    expect(warningOf(['disodium EDTA dihydrate', 'MgCl2', 'NaCl'], [0.001, 0.002, 0.8])).toMatch(/range \(about 0\.5 mol\/kg\).*; EDTA with Mg²⁺/);
+    expect(warningOf(['disodium EDTA dihydrate', 'MgCl2', 'NaCl'], [0.001, 0.002, 0.8])).toMatch(/range \(about 0\.499 mol\/L here\).*; EDTA with Mg²⁺/);
   });
   test('no binding warning without the metal ion', () => {
     expect(warningOf(['disodium EDTA dihydrate', 'NaCl', 'KCl'], [0.001, 0.15, 0.003])).toBe('none');

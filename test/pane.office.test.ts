@@ -108,7 +108,7 @@ describe('writing blocks into the sheet (office-addin-mock)', () => {
     expect(re[9][1] as number).toBeGreaterThan(0);
     const cu = run(curveBlock(MIX, '1 M NaOH', 10, 11, 'mL', 0, 0));
     const curve = impl.curve([['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, '1 M NaOH', 10, 11) as number[][];
-    expect(cu.slice(10, 21).map((r) => r.slice(0, 2))).toEqual(curve);
+    expect(cu.slice(10, 21).map((r) => r.slice(0, 3))).toEqual(curve);
   });
 
   test('the audit block reserves both spills and computes the same tables as SPECIES and CONSTANTS', () => {

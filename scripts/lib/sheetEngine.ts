@@ -10,6 +10,7 @@ import { handcheck } from '../../src/functions/handcheck';
 import { saltDose } from '../../src/functions/saltdose';
 import { toCellFailure } from '../../src/functions/outcome';
 import { stock } from '../../src/functions/stock';
+import type { CellFailure } from '../../src/functions/outcome';
 
 type Impl = (...args: unknown[]) => unknown;
 
@@ -24,14 +25,14 @@ interface ProticFunction {
 export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'PHMIX', fn: impl.ph as Impl, arity: [3, 6] },
   { name: 'TITRANT', fn: impl.titrant as Impl, arity: [6, 10] },
-  { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 2] },
-  { name: 'FRACTIONS', fn: impl.fractions as Impl, arity: [2, 4], fallback: [1, 7] },
+  { name: 'CURVE', fn: impl.curve as Impl, arity: [6, 10], fallback: [51, 3] },
+  { name: 'FRACTIONS', fn: impl.fractions as Impl, arity: [2, 5], fallback: [1, 7] },
   { name: 'SPECIES', fn: impl.species as Impl, arity: [3, 6], fallback: [40, 5] },
   { name: 'CONSTANTS', fn: impl.constants as Impl, arity: [3, 6], fallback: [30, 11] },
   { name: 'WARNINGS', fn: impl.warnings as Impl, arity: [3, 6] },
   { name: 'IONICSTRENGTH', fn: impl.ionicStrength as Impl, arity: [3, 6] },
   { name: 'CAPACITY', fn: impl.capacity as Impl, arity: [3, 6] },
-  { name: 'PKA', fn: impl.pka as Impl, arity: [2, 4] },
+  { name: 'PKA', fn: impl.pka as Impl, arity: [2, 5] },
   { name: 'RECIPE', fn: impl.recipe as Impl, arity: [5, 10], fallback: [2, 3] },
   { name: 'SALTDOSE', fn: saltDose as Impl, arity: [6, 9] },
   { name: 'MOLARMASS', fn: impl.molarMass as Impl, arity: [1, 1] },
@@ -67,6 +68,18 @@ export interface EvaluationHooks {
   evaluated?: (name: string, sheet: number, row: number, col: number, shape: [number, number] | undefined) => void;
 }
 let hooks: EvaluationHooks = {};
+/** The failure of a spill's call while the sheet was parsed, by formula address. */
+const sizeFailures = new Map<string, CellFailure>();
+
+function addressKey(address: unknown): string {
+  const a = address as { sheet?: number; row?: number; col?: number };
+  return `${a.sheet}:${a.row}:${a.col}`;
+}
+
+function asHostPasses(arg: AstLike, value: Plain): Plain {
+  return arg.type === 'CELL_RANGE' && !Array.isArray(value) && !(value instanceof CellError) ? [[value]] : value;
+}
+
 
 type Plain = unknown;
 
@@ -133,7 +146,8 @@ export class ProticPlugin extends FunctionPlugin {
 
   run(name: string, ast: { args: AstLike[] }, state: { formulaAddress: unknown; formulaVertex?: unknown }): unknown {
     const entry = BY_NAME.get(name) as ProticFunction;
-    const values = ast.args.map((arg) => (arg.type === 'EMPTY' ? null : plain(this.evaluateAst(arg as never, state as never))));
+    // a range is a 2-D array even when it is one cell, as Excel passes it (HyperFormula gives a 1×1 range as its value)
+    const values = ast.args.map((arg) => (arg.type === 'EMPTY' ? null : asHostPasses(arg, plain(this.evaluateAst(arg as never, state as never)))));
     const error = firstError(values);
     if (error) return error;
     const spill = SPILLS.has(name);
@@ -156,6 +170,9 @@ export class ProticPlugin extends FunctionPlugin {
       ? [vertex.height, vertex.width] : this.sizeFor(name, ast, state);
     const shape = shapeOf(result) as [number, number];
     if (shape[0] > size[0] || shape[1] > size[1]) {
+      // sizing failed: its failure is the real one, not the size it left reserved
+      const sizing = sizeFailures.get(addressKey(state.formulaAddress));
+      if (sizing) return new CellError(sizing.kind === '#N/A' ? ErrorType.NA : ErrorType.VALUE, `${name}: the sheet could not size this spill: ${sizing.message}`);
       return new CellError(ErrorType.VALUE, `${name}: the result is ${shape[0]}×${shape[1]} but the sheet reserved ${size[0]}×${size[1]}; type the arguments that set its size into cells rather than computing them`);
     }
     const padded = Array.from({ length: size[0] }, (_, r) => Array.from({ length: size[1] }, (_, c) => (result as unknown[][])[r]?.[c] ?? ''));
@@ -174,8 +191,9 @@ export class ProticPlugin extends FunctionPlugin {
       const result = entry.fn(...values);
       spillResults.set(spillKey(name, values), result);
       return shapeOf(result) ?? [1, 1];
-    } catch {
-      // the call fails: it will show its error in one cell
+    } catch (e) {
+      // the call fails: it will show its error in one cell (and this one, should the evaluated call not fit)
+      sizeFailures.set(addressKey(state.formulaAddress), toCellFailure(e));
       return [1, 1];
     }
   }
@@ -241,6 +259,7 @@ export function withWorkbook<T>(book: WorkbookInput, use: (hf: HyperFormula) => 
     rawGrids = [];
     hooks = {};
     spillResults.clear();
+    sizeFailures.clear();
   }
 }
 

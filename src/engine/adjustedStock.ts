@@ -1,3 +1,4 @@
+import { parseModel } from './activity';
 import type { ActivityModel } from './activity';
 import { fail, quote } from './failure';
 import { addReagent } from './mixture';
@@ -23,11 +24,13 @@ export interface AdjustedStockText {
   /** the titrant as written, or undefined to choose HCl or NaOH by the side of the target */
   titrantText?: string;
   temperatureC: number;
+  /** the activity model the stock is adjusted under: what is in the bottle does not change with a later cell's model */
+  model: ActivityModel;
 }
 
 const NUMBER = String.raw`(\d+(?:[.,]\d+)?(?:[eE][-+]?\d+)?|[.,]\d+)`;
 const PATTERN = new RegExp(String.raw`^\s*${NUMBER}\s*(M|mM|[uµμ]M|mol\/[lL]|mmol\/[lL])\s+(.+?)\s*,?\s+pH\s*${NUMBER}`
-  + String.raw`(?:\s+(?:with|using)\s+(.+?))?(?:\s+at\s+${NUMBER}\s*°?\s*C)?\s*$`);
+  + String.raw`(?:\s+(?:with|using)\s+(.+?))?(?:\s+at\s+${NUMBER}\s*°?\s*C)?(?:\s+under\s+([A-Za-z–-]+))?\s*$`);
 // `Tris-HCl`, `HEPES-NaOH`, `MES/KOH`: the base (or acid) then the titrant that set the pH
 const SHORTHAND = /^(.+?)\s*[-/–]\s*(HCl|NaOH|KOH)$/i;
 
@@ -47,7 +50,10 @@ export function parseAdjustedStock(text: string): AdjustedStockText | undefined 
     reagentText = short[1];
     titrantText = short[2];
   }
-  return { concentrationM: num(m[1]) * unit.toBase, reagentText, targetPH: num(m[4]), titrantText, temperatureC: m[6] === undefined ? 25 : num(m[6]) };
+  return {
+    concentrationM: num(m[1]) * unit.toBase, reagentText, targetPH: num(m[4]), titrantText,
+    temperatureC: m[6] === undefined ? 25 : num(m[6]), model: m[7] === undefined ? 'davies' : parseModel(m[7], 'reagents'),
+  };
 }
 
 /** The titrant as a pure compound made up to volume: it adds no volume of its own. */
@@ -56,11 +62,12 @@ function asMadeUpToVolume(resolved: ResolvedReagent): ReagentSpec {
 }
 
 /**
- * Composition per litre of a pH-adjusted stock under `model`.
- * @example adjustedStockComposition(parseAdjustedStock('1 M Tris-HCl pH 8.0')!, text, 'davies')
+ * Composition per litre of a pH-adjusted stock, under the model its text names (davies unless `under <model>`).
+ * @example adjustedStockComposition(parseAdjustedStock('1 M Tris-HCl pH 8.0')!, text)
  *   → Tris 1 mol/L, Cl⁻ ≈ 0.4 mol/L (the HCl that brings it to pH 8.0 at 25 °C)
  */
-export function adjustedStockComposition(s: AdjustedStockText, text: string, model: ActivityModel, argument = 'reagents', row?: number): StockComposition {
+export function adjustedStockComposition(s: AdjustedStockText, text: string, argument = 'reagents', row?: number): StockComposition {
+  const model = s.model;
   if (!(s.concentrationM > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
   const reagent = resolveReagent(s.reagentText, argument, row);
   const contents: Contents = { systemMoles: new Map(), ionMoles: new Map(), volumeL: 1, rows: [] };

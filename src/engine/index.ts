@@ -7,8 +7,8 @@ export { FAILURE_CODES, NOT_AVAILABLE_CODES, ProticError, describeFailure, fail,
 export type { Failure, FailureCode, ReachableRange } from './failure';
 export { compositionKey, compositionMassGPerMol, looksLikeFormula, molarMassGPerMol, parseFormula, withoutHydrogens } from './formula';
 export type { Composition, ParsedFormula } from './formula';
-export { addReagent, buildContents, cloneContents, molesPerLitreDispensed, parseReagentSpec } from './mixture';
-export type { Contents, MixtureRow, ReagentSpec, RowAudit } from './mixture';
+export { addReagent, buildContents, cloneContents, contentsFromParsed, molesPerLitreDispensed, parseReagentSpec } from './mixture';
+export type { Contents, MixtureRow, ParsedRow, ReagentSpec, RowAudit } from './mixture';
 export { MAX_COMPONENT_M, checkSystemRange, lnKaAt, prepareProblem, prepareSystem, setActivity } from './problem';
 export type { PreparedSystem, Problem } from './problem';
 export { recipeForTarget, recipeLine } from './recipe';

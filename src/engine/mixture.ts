@@ -4,7 +4,6 @@ import { registryGeneration, resolveReagent } from './registry';
 import type { ResolvedReagent } from './registry';
 import { parseUnit, splitMassStock, splitStock } from './units';
 import type { Unit } from './units';
-import type { ActivityModel } from './activity';
 import { adjustedStockComposition, parseAdjustedStock } from './adjustedStock';
 import { decodeHandle, handleReagent, looksLikeHandle } from './stockHandle';
 import type { StockComposition } from './stockHandle';
@@ -52,20 +51,19 @@ let specCacheGeneration = -1;
 
 /**
  * Parses a reagent cell: a stock (`0.5 M NaOH`), a made solution (a STOCK handle, or a pH-adjusted
- * stock such as `1 M Tris-HCl pH 8.0`, whose composition depends on the activity model), or a
+ * stock such as `1 M Tris-HCl pH 8.0`, whose composition the text alone fixes), or a
  * catalogue name or formula.
  */
-export function parseReagentSpec(text: string, argument: string, row?: number, model: ActivityModel = 'davies'): ReagentSpec {
+export function parseReagentSpec(text: string, argument: string, row?: number): ReagentSpec {
   if (specCacheGeneration !== registryGeneration()) {
     specCache.clear();
     specCacheGeneration = registryGeneration();
   }
-  const key = `${model}\u0000${text}`;
-  const hit = specCache.get(key);
+  const hit = specCache.get(text);
   if (hit) return hit;
-  const spec = parseReagentSpecUncached(text, argument, row, model);
+  const spec = parseReagentSpecUncached(text, argument, row);
   if (specCache.size > 10000) specCache.clear();
-  specCache.set(key, spec);
+  specCache.set(text, spec);
   return spec;
 }
 
@@ -73,11 +71,11 @@ function madeSpec(made: StockComposition, text: string): ReagentSpec {
   return { resolved: { reagent: handleReagent(made, text), molarMassGPerMol: 0, hydrateWater: 0, matchedBy: 'name' }, stockM: 1, made };
 }
 
-function parseReagentSpecUncached(text: string, argument: string, row: number | undefined, model: ActivityModel): ReagentSpec {
+function parseReagentSpecUncached(text: string, argument: string, row: number | undefined): ReagentSpec {
   // made solutions first: a handle's readable part, or a bottle label, must never be read as a plain reagent
   if (looksLikeHandle(text)) return madeSpec(decodeHandle(text, argument, row), text);
   const adjusted = parseAdjustedStock(text);
-  if (adjusted) return madeSpec(adjustedStockComposition(adjusted, text, model, argument, row), text);
+  if (adjusted) return madeSpec(adjustedStockComposition(adjusted, text, argument, row), text);
   const massStock = splitMassStock(text);
   if (massStock) {
     if (!(massStock.gramsPerL > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
@@ -148,8 +146,19 @@ export function addReagent(contents: Contents, reagent: Reagent, moles: number):
  * mass, an amount or a volume; with only concentrations none is; with only stock volumes (and
  * concentrations) the volumes are added (additive-volume assumption).
  */
-export function buildContents(rows: MixtureRow[], volumeL: number | undefined, model: ActivityModel = 'davies'): Contents {
-  const parsed = rows.map((row) => ({ row, spec: parseReagentSpec(row.reagent, 'reagents', row.row, model), unit: parseUnit(row.unit, 'units', row.row) }));
+export function buildContents(rows: MixtureRow[], volumeL: number | undefined): Contents {
+  return contentsFromParsed(rows.map((row) => ({ row, spec: parseReagentSpec(row.reagent, 'reagents', row.row), unit: parseUnit(row.unit, 'units', row.row) })), volumeL);
+}
+
+/** A row whose reagent text and unit are already parsed (the cell layer parses a column once for a whole table). */
+export interface ParsedRow {
+  row: MixtureRow;
+  spec: ReagentSpec;
+  unit: Unit;
+}
+
+/** `buildContents` for rows already parsed, in row order: the same checks, the same failures. */
+export function contentsFromParsed(parsed: ParsedRow[], volumeL: number | undefined): Contents {
   let finalVolumeL = volumeL;
   if (finalVolumeL === undefined) {
     const needsVolume = parsed.find((p) => p.unit.kind === 'mass' || p.unit.kind === 'amount');

@@ -1,5 +1,6 @@
 import { MODEL_LIMIT_MOLAL } from './activity';
 import type { Problem } from './problem';
+import { setActivity } from './problem';
 import type { Equilibrium, JointJacobian } from './solver';
 import { jointJacobian, lnGammaZ2For } from './solver';
 import { fractionsAt } from './speciation';
@@ -53,7 +54,11 @@ const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scal
  */
 export function bufferCapacity(eq: Equilibrium): number {
   const p = eq.problem;
+  // jointJacobian sets the problem's conditional constants; put back the solution's own, so a result
+  // read from this equilibrium afterwards (SPECIES, CONSTANTS) does not depend on whether β came first
+  const solvedLnGammaZ2 = p.lnGammaZ2;
   jointJacobian(p, eq.lnH, lnGammaZ2For(p, eq.ionicStrengthM), joint);
+  setActivity(p, solvedLnGammaZ2);
   // d(ln h, L)/dCb = −J⁻¹ (1, 0): one mol/L of strong-base charge; pH = −(ln h + L − ln ρw)/ln 10
   const det = joint.j11 * joint.j22 - joint.j12 * joint.j21;
   const dy = -joint.j22 / det;
@@ -70,12 +75,14 @@ export function modelWarning(eq: Equilibrium): string {
   const p = eq.problem;
   const warnings: string[] = [];
   const limit = MODEL_LIMIT_MOLAL[p.model];
-  const ionicMolal = eq.ionicStrengthM / Math.exp(p.lnWaterDensity);
+  // the model's range is molal (I/ρw); it is printed in mol/L, the unit of IONICSTRENGTH and SPECIES
+  const rhoW = Math.exp(p.lnWaterDensity);
+  const ionicMolal = eq.ionicStrengthM / rhoW;
   if (p.model !== 'ideal' && ionicMolal > limit) {
-    warnings.push(`ionic strength ${ionicMolal.toPrecision(3)} mol/kg is above the ${MODEL_DISPLAY_NAMES[p.model] ?? p.model} model's range (about ${limit} mol/kg): treat the pH as an estimate`);
+    warnings.push(`ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L is above the ${MODEL_DISPLAY_NAMES[p.model] ?? p.model} model's range (about ${Number((limit * rhoW).toPrecision(3))} mol/L here): treat the pH as an estimate`);
   }
   if (p.model === 'ideal' && ionicMolal > 0.001) {
-    warnings.push(`ideal model at ionic strength ${ionicMolal.toPrecision(3)} mol/kg: activity corrections are ignored`);
+    warnings.push(`ideal model at ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L: activity corrections are ignored`);
   }
   p.systems.forEach((s, i) => {
     const cap = s.system.concentrationLimit;

@@ -62,7 +62,7 @@ function TITRANT(targetPH: number, reagents: any[][], amounts: any[][], units: a
 }
 
 /**
- * Titration curve for charting: titrant added against pH.
+ * Titration curve for charting: titrant added against pH, with a check text per point.
  * @customfunction CURVE
  * @helpurl https://localhost:3000/help.html#curve
  * @param reagents Reagents of the mixture, one per row.
@@ -75,7 +75,7 @@ function TITRANT(targetPH: number, reagents: any[][], amounts: any[][], units: a
  * @param [temperature] Temperature, °C (default 25).
  * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
  * @param [resultUnit] Unit of the titrant column (default mL for solutions, g for solids).
- * @returns A points×2 spill: titrant added, pH.
+ * @returns A points×3 spill: titrant added, pH, check text (empty inside the model's validity, else the reason).
  */
 function CURVE(reagents: any[][], amounts: any[][], units: any[][], volume: number, titrant: string, maxAmount: number,
   points?: any, temperature?: any, model?: any, resultUnit?: any): any[][] {
@@ -89,11 +89,12 @@ function CURVE(reagents: any[][], amounts: any[][], units: any[][], volume: numb
  * @param system A system name (phosphate, citrate, Tris) or any reagent of that system.
  * @param pH pH (activity scale).
  * @param [temperature] Temperature, °C (default 25).
- * @param [ionicStrength] Ionic strength, mol/L (default 0: thermodynamic constants; above 0: Davies).
+ * @param [ionicStrength] Ionic strength, mol/L (default 0: thermodynamic constants; above 0: the model's apparent constants).
+ * @param [model] Activity model at that ionic strength: davies (default), bates-guggenheim or ideal.
  * @returns A 1×(n+1) spill of fractions.
  */
-function FRACTIONS(system: string, pH: number, temperature?: any, ionicStrength?: any): number[][] {
-  return run(() => impl.fractions(system, pH, temperature, ionicStrength));
+function FRACTIONS(system: string, pH: number, temperature?: any, ionicStrength?: any, model?: any): number[][] {
+  return run(() => impl.fractions(system, pH, temperature, ionicStrength, model));
 }
 
 /**
@@ -177,17 +178,18 @@ function CAPACITY(reagents: any[][], amounts: any[][], units: any[][], volume?: 
 }
 
 /**
- * pKa of one step of an acid system at a temperature; with an ionic strength, the apparent (Davies) value.
+ * pKa of one step of an acid system at a temperature; with an ionic strength, the apparent value under the model (default davies).
  * @customfunction PKA
  * @helpurl https://localhost:3000/help.html#pka
  * @param system A system name or any reagent of that system.
  * @param step Step, 1 = first proton lost.
  * @param [temperature] Temperature, °C (default 25).
  * @param [ionicStrength] Ionic strength, mol/L (default 0).
+ * @param [model] Activity model at that ionic strength: davies (default), bates-guggenheim or ideal.
  * @returns pKa.
  */
-function PKA(system: string, step: number, temperature?: any, ionicStrength?: any): number {
-  return run(() => impl.pka(system, step, temperature, ionicStrength));
+function PKA(system: string, step: number, temperature?: any, ionicStrength?: any, model?: any): number {
+  return run(() => impl.pka(system, step, temperature, ionicStrength, model));
 }
 
 /**

@@ -1,15 +1,15 @@
 import { ADDIN_VERSION, CATALOGUE_VERSION, levelLabel } from '../catalogue';
 import {
-  apparentPKas, bufferCapacity, buildContents, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
+  apparentPKas, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
   WATER_RANGE_C, WATER_SOURCES, debyeHuckelA, pHWithStepPKa, fractionsAt, looksLikeFormula, modelWarning, pKw, waterDensityKgPerL, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
-  pKaAt, prepareProblem, quote, reagentByName, recipeForTarget, registryGeneration, resolveReagent, resolveSystem, speciesRows, solve,
+  pKaAt, quote, reagentByName, recipeForTarget, resolveReagent, resolveSystem, speciesRows,
   titrantForTarget, titrantUnit, unitToMoles, withTitrant,
 } from '../engine';
-import type { ActivityModel, Contents, Equilibrium, MixtureRow } from '../engine';
 import {
   IONIC_STRENGTH_RULE, PH_RULE, TEMPERATURE_RULE, VOLUME_RULE, mixtureRows, optionalNumber, requiredNumber, requiredText, toMatrix,
 } from './args';
 import type { Cell } from './args';
+import { capacityOf, contentsOf, equilibriumOf, mixtureEntry, readMixture, warningOf } from './mixtureCache';
 
 // The cell functions as plain TypeScript: Excel's wrappers (functions.ts) and the headless
 // sheet runner call these same implementations. They throw ProticError for bad input.
@@ -17,75 +17,29 @@ import type { Cell } from './args';
 export type CellScalar = number | string;
 export type CellResult = CellScalar | CellScalar[][];
 
-// Parsed mixtures and solved equilibria, keyed on their content, so that a table of cells
-// that repeat a mixture does the parsing and solving once.
-const CACHE_LIMIT = 5000;
-const contentsCache = new Map<string, Contents>();
-const equilibriumCache = new Map<string, Equilibrium>();
-
-function remember<T>(cache: Map<string, T>, key: string, make: () => T): T {
-  const hit = cache.get(key);
-  if (hit !== undefined) return hit;
-  const value = make();
-  if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value as string);
-  cache.set(key, value);
-  return value;
-}
-
-function rowsKey(rows: MixtureRow[], volumeL: number | undefined): string {
-  let key = `${registryGeneration()}|${volumeL}`;
-  for (const r of rows) key += `|${r.reagent}\u0000${r.amount}\u0000${r.unit}\u0000${r.row}`;
-  return key;
-}
-
-interface MixtureArgs {
-  rows: MixtureRow[];
-  volumeL: number | undefined;
-  temperatureC: number;
-  model: ActivityModel;
-}
-
-function readMixture(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, temperature: Cell, model: Cell): MixtureArgs {
-  return {
-    rows: mixtureRows(reagents, amounts, units),
-    volumeL: optionalNumber(volume, 'volume', undefined, VOLUME_RULE),
-    temperatureC: optionalNumber(temperature, 'temperature', 25, TEMPERATURE_RULE),
-    model: parseModel(model),
-  };
-}
-
-function contentsOf(rows: MixtureRow[], volumeL: number | undefined, model: ActivityModel = 'davies', key = rowsKey(rows, volumeL)): Contents {
-  // the model is part of the key: a pH-adjusted stock's composition is solved under it
-  return remember(contentsCache, `${key}|${model}`, () => buildContents(rows, volumeL, model));
-}
-
-function equilibriumOf(m: MixtureArgs): Equilibrium {
-  const mixtureKey = rowsKey(m.rows, m.volumeL);
-  return remember(equilibriumCache, `${mixtureKey}|${m.temperatureC}|${m.model}`,
-    () => solve(prepareProblem(contentsOf(m.rows, m.volumeL, m.model, mixtureKey), m.temperatureC, m.model)));
-}
-
 /** The last guard before a number reaches a cell: never NaN or Infinity. */
 function finite(value: number, what: string): number {
   if (!Number.isFinite(value)) fail({ code: 'no_convergence', argument: what, received: String(value), expected: 'a finite result; please report this input' });
   return value;
 }
 
+// The mixture functions share one solved entry per mixture (mixtureCache.ts): beside PHMIX in a row,
+// IONICSTRENGTH, CAPACITY, WARNINGS and SPECIES read and check their arguments, then find it.
 export function ph(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
-  return finite(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model)).pH, 'pH');
+  return finite(mixtureEntry(reagents, amounts, units, volume, temperature, model).pH, 'pH');
 }
 
 export function ionicStrength(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
-  return finite(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model)).ionicStrengthM, 'ionic strength');
+  return finite(mixtureEntry(reagents, amounts, units, volume, temperature, model).ionicStrengthM, 'ionic strength');
 }
 
 export function capacity(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): number {
-  return finite(bufferCapacity(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model))), 'buffer capacity');
+  return finite(capacityOf(mixtureEntry(reagents, amounts, units, volume, temperature, model)), 'buffer capacity');
 }
 
 /** The mixture's model warnings as one text, or "none": a column to keep beside PHMIX in a table. */
 export function warnings(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): string {
-  const warning = modelWarning(equilibriumOf(readMixture(reagents, amounts, units, volume, temperature, model)));
+  const warning = warningOf(mixtureEntry(reagents, amounts, units, volume, temperature, model));
   return warning === '' ? 'none' : warning;
 }
 
@@ -97,9 +51,9 @@ export const CONSTANTS_HEADER = ['constant', 'step', 'at this temperature, I = 0
  * pH − log10([base]/[acid]) at the mixture's own ionic strength under its model; then pKw, A and the water density.
  */
 export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): CellScalar[][] {
-  const m = readMixture(reagents, amounts, units, volume, temperature, model);
-  const eq = equilibriumOf(m);
+  const eq = equilibriumOf(mixtureEntry(reagents, amounts, units, volume, temperature, model));
   const p = eq.problem;
+  const m = { temperatureC: p.temperatureC, model: p.model };
   const table: CellScalar[][] = [CONSTANTS_HEADER];
   p.systems.forEach((s, i) => {
     const alpha = fractionsAt(s.lnCumK, eq.lnH);
@@ -129,17 +83,18 @@ export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: C
 export const SPECIES_HEADER = ['species', 'charge', 'concentration (mol/L)', 'activity coefficient', 'activity'];
 
 export function species(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): CellScalar[][] {
-  const m = readMixture(reagents, amounts, units, volume, temperature, model);
-  const eq = equilibriumOf(m);
+  const entry = mixtureEntry(reagents, amounts, units, volume, temperature, model);
+  const eq = equilibriumOf(entry);
+  const m = { temperatureC: eq.problem.temperatureC, model: eq.problem.model };
   const table: CellScalar[][] = [SPECIES_HEADER];
   for (const s of speciesRows(eq)) table.push([s.species, s.charge, finite(s.concentrationM, s.species), finite(s.activityCoefficient, s.species), finite(s.activity, s.species)]);
-  const warning = modelWarning(eq);
+  const warning = warningOf(entry);
   table.push(['pH', finite(eq.pH, 'pH'), '', '', '']);
   table.push(['ionic strength (mol/L)', finite(eq.ionicStrengthM, 'ionic strength'), '', '', '']);
   table.push(['charge-balance residual (relative)', finite(eq.residualRelative, 'residual'), '', '', '']);
   // The basis a reviewer needs to reproduce the activity column: activity = γ·c/ρw (molal).
   const rhoW = Math.exp(eq.problem.lnWaterDensity);
-  table.push(['model', `${m.model}, ${m.temperatureC} °C; activity = γ·c/ρw, ρw ${rhoW.toFixed(6)} kg/L`, '', '', '']);
+  table.push(['model', `${m.model}, ${m.temperatureC} °C; activity = γ·c/ρw, γ from the ionic strength on the molal basis I/ρw, ρw ${rhoW.toFixed(6)} kg/L`, '', '', '']);
   table.push(['warning', warning === '' ? 'none' : warning, '', '', '']);
   return table;
 }
@@ -155,11 +110,11 @@ export function titrant(targetPH: Cell, reagents: Cell, amounts: Cell, units: Ce
   const target = requiredNumber(targetPH, 'targetPH', PH_RULE);
   const m = readMixture(reagents, amounts, units, null, temperature, model);
   const volumeL = requiredVolume(volume);
-  const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant', undefined, m.model);
+  const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant');
   const unit = titrantUnit(resultUnit, spec, 'resultUnit');
   // with a final volume the adjusted solution is made up to it; without, the titrant's own volume adds to `volume`
   const finalVolumeL = optionalNumber(finalVolume ?? null, 'finalVolume', undefined, { ...VOLUME_RULE, expected: 'the volume, in litres, the adjusted solution is made up to' });
-  const result = titrantForTarget(target, contentsOf(m.rows, volumeL, m.model), spec, m.temperatureC, m.model, { finalVolumeL });
+  const result = titrantForTarget(target, contentsOf(m.rows, volumeL), spec, m.temperatureC, m.model, { finalVolumeL });
   return finite(molesToUnit(result.moles, spec, unit), 'titrant');
 }
 
@@ -167,17 +122,18 @@ export function curve(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, 
   points?: Cell, temperature?: Cell, model?: Cell, resultUnit?: Cell): CellScalar[][] {
   const m = readMixture(reagents, amounts, units, null, temperature, model);
   const volumeL = requiredVolume(volume);
-  const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant', undefined, m.model);
+  const spec = parseReagentSpec(requiredText(titrantText, 'titrant', 'a titrant such as 1 M NaOH or NaOH'), 'titrant');
   const max = requiredNumber(maxAmount, 'maxAmount', { min: 0, max: 1e9, expected: 'the largest titrant amount, above zero, in resultUnit' });
   if (max === 0) fail({ code: 'bad_argument', argument: 'maxAmount', received: '0', expected: 'the largest titrant amount, above zero, in resultUnit' });
   const n = optionalNumber(points, 'points', 51, { min: 2, max: 1001, integer: true, expected: 'a whole number of points from 2 to 1001 (default 51)' });
   const unit = titrantUnit(resultUnit, spec, 'resultUnit');
-  const contents = contentsOf(m.rows, volumeL, m.model);
+  const contents = contentsOf(m.rows, volumeL);
   const out: CellScalar[][] = [];
   for (let i = 0; i < n; i++) {
     const amount = (max * i) / (n - 1);
     const eq = withTitrant(contents, spec, unitToMoles(amount, spec, unit), m.temperatureC, m.model);
-    out.push([amount, finite(eq.pH, 'pH')]);
+    // the check text: empty inside the model's validity, else the reason (as WARNINGS words it)
+    out.push([amount, finite(eq.pH, 'pH'), modelWarning(eq)]);
   }
   return out;
 }
@@ -186,14 +142,15 @@ function temperatureFor(temperature: Cell): number {
   return optionalNumber(temperature, 'temperature', 25, TEMPERATURE_RULE);
 }
 
-export function fractions(system: Cell, pH: Cell, temperature?: Cell, ionicStrengthArg?: Cell): number[][] {
+export function fractions(system: Cell, pH: Cell, temperature?: Cell, ionicStrengthArg?: Cell, model?: Cell): number[][] {
   const sys = resolveSystem(Array.isArray(system) ? toSingle(system) : system);
   const pHValue = requiredNumber(pH, 'pH', PH_RULE);
   const temperatureC = temperatureFor(temperature);
   checkWaterRange(temperatureC);
   checkSystemRange(sys, temperatureC);
   const ionic = optionalNumber(ionicStrengthArg, 'ionicStrength', 0, IONIC_STRENGTH_RULE);
-  return [fractionsAtPH(sys, pHValue, temperatureC, ionic).map((f) => finite(f, 'fraction'))];
+  const activityModel = parseModel(model);
+  return [fractionsAtPH(sys, pHValue, temperatureC, ionic, activityModel).map((f) => finite(f, 'fraction'))];
 }
 
 function toSingle(value: Cell[]): Cell {
@@ -202,7 +159,7 @@ function toSingle(value: Cell[]): Cell {
   return flat[0];
 }
 
-export function pka(system: Cell, step: Cell, temperature?: Cell, ionicStrengthArg?: Cell): number {
+export function pka(system: Cell, step: Cell, temperature?: Cell, ionicStrengthArg?: Cell, model?: Cell): number {
   const sys = resolveSystem(Array.isArray(system) ? toSingle(system) : system);
   const n = sys.steps.length;
   const k = requiredNumber(step, 'step', { min: 1, max: n, integer: true, expected: `a step from 1 to ${n} for ${sys.name} (1 = first proton lost)` });
@@ -210,8 +167,9 @@ export function pka(system: Cell, step: Cell, temperature?: Cell, ionicStrengthA
   checkWaterRange(temperatureC);
   checkSystemRange(sys, temperatureC);
   const ionic = optionalNumber(ionicStrengthArg, 'ionicStrength', 0, IONIC_STRENGTH_RULE);
+  const activityModel = parseModel(model);
   if (ionic === 0) return finite(pKaAt(sys.steps[k - 1], temperatureC), 'pKa');
-  return finite(apparentPKas(sys, temperatureC, ionic)[k - 1], 'pKa');
+  return finite(apparentPKas(sys, temperatureC, ionic, activityModel)[k - 1], 'pKa');
 }
 
 export function recipe(acidForm: Cell, baseForm: Cell, targetPH: Cell, concentration: Cell, volume: Cell, temperature?: Cell, model?: Cell,
@@ -227,7 +185,7 @@ export function recipe(acidForm: Cell, baseForm: Cell, targetPH: Cell, concentra
   const rows = hasOthers
     ? mixtureRows(otherReagents, otherAmounts ?? null, otherUnits ?? null, { reagents: 'otherReagents', amounts: 'otherAmounts', units: 'otherUnits' })
     : [];
-  const others = rows.length > 0 ? contentsOf(rows, volumeL, activityModel) : { systemMoles: new Map(), ionMoles: new Map(), volumeL, rows: [] };
+  const others = rows.length > 0 ? contentsOf(rows, volumeL) : { systemMoles: new Map(), ionMoles: new Map(), volumeL, rows: [] };
   checkWaterRange(temperatureC);
   const lines = recipeForTarget(acid, base, target, concentrationM, volumeL, others, temperatureC, activityModel);
   // the form as typed (a 1×1 range is read as its one cell), the amount, and its unit: g to weigh, mL to measure

@@ -33,7 +33,7 @@ type Shape = [rows: number, columns: number];
  */
 export const SPILL_SHAPES = {
   RECIPE: (): Shape => [2, 3],
-  CURVE: (points: number): Shape => [points, 2],
+  CURVE: (points: number): Shape => [points, 3],
   FRACTIONS: (formCount: number): Shape => [1, formCount],
   SPECIES: (tableRows: number): Shape => [tableRows, 5],
   CONSTANTS: (tableRows: number): Shape => [tableRows, CONSTANTS_HEADER.length],
