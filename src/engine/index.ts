@@ -5,18 +5,20 @@ export { chargeBalance } from './chargeBalance';
 export type { BalanceOut } from './chargeBalance';
 export { FAILURE_CODES, NOT_AVAILABLE_CODES, ProticError, describeFailure, fail, quote } from './failure';
 export type { Failure, FailureCode } from './failure';
-export { compositionKey, compositionMassGPerMol, looksLikeFormula, molarMassGPerMol, parseFormula, withoutHydrogens } from './formula';
-export type { Composition, ParsedFormula } from './formula';
-export { addReagent, buildContents, cloneContents, molesPerLitreDispensed, parseReagentSpec } from './mixture';
-export type { Contents, MixtureRow, ReagentSpec, RowAudit } from './mixture';
+export { MAX_FORMULA_DEPTH, compositionKey, compositionMassGPerMol, hydrateText, looksLikeFormula, molarMassGPerMol, parseFormula, splitHydrate, withoutHydrogens } from './formula';
+export type { Composition, HydrateSplit, ParsedFormula } from './formula';
+export { MAX_MASS_STOCK_G_PER_L, addReagent, buildContents, cloneContents, molesPerLitreDispensed, parseReagentSpec, registerSpecReader } from './mixture';
+export type { Contents, MixtureRow, ReagentSpec, RowAudit, SpecReader } from './mixture';
 export { checkSystemRange, lnKaAt, prepareProblem, prepareSystem, setActivity } from './problem';
 export type { PreparedSystem, Problem } from './problem';
 export { recipeForTarget } from './recipe';
 export type { RecipeLine } from './recipe';
 export {
-  allReagents, allSystems, closestReagentNames, molarMassOfReagent, normaliseName, reagentByName, registryGeneration,
+  allReagents, allSystems, closestReagentNames, compactName, molarMassOfReagent, normaliseName, reagentByName, registryGeneration,
   resolveReagent, resolveSystem, setCustomDefinitions, systemFor,
 } from './registry';
+export { firstCharacterProblem, foldConfusables, plainText, screenText } from './textScreen';
+export type { CharacterProblem } from './textScreen';
 export type { ResolvedReagent } from './registry';
 export { bufferCapacity, ionLabel, modelWarning, speciesRows } from './results';
 export type { SpeciesRow } from './results';
@@ -26,7 +28,7 @@ export { fractionsAt, systemMoments } from './speciation';
 export { dpKaPerK, pKaAt } from './temperature';
 export { litresPerMole, molesToUnit, titrantForTarget, titrantUnit, unitToMoles, withTitrant } from './titrant';
 export type { TitrantResult } from './titrant';
-export { UNIT_LIST, findUnit, parseUnit, splitMassStock, splitStock } from './units';
+export { UNIT_LIST, findUnit, parseUnit, splitMassStock, splitStock, unitCaseHint } from './units';
 export type { Unit, UnitKind } from './units';
 export { WATER_RANGE_C, WATER_SOURCES, checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL, waterPermittivity } from './water';
 export { applyCustomDefinitions, clearCustomDefinitions } from './customSystems';

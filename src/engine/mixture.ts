@@ -1,7 +1,9 @@
 import type { Reagent } from '../catalogue';
 import { fail, quote } from './failure';
-import { registryGeneration, resolveReagent } from './registry';
+import { MAX_COMPONENT_M } from './problem';
+import { allReagents, registryGeneration, resolveReagent } from './registry';
 import type { ResolvedReagent } from './registry';
+import { plainText, screenText } from './textScreen';
 import { parseUnit, splitMassStock, splitStock } from './units';
 import type { Unit } from './units';
 
@@ -42,7 +44,21 @@ export interface ReagentSpec {
 const specCache = new Map<string, ReagentSpec>();
 let specCacheGeneration = -1;
 
-/** Parses a reagent cell: a stock (`0.5 M NaOH`) or a catalogue name or formula. */
+/**
+ * Readers tried first, on the screened text, before stocks and names: the one place where a text of another kind
+ * (a STOCK handle, a stock with a pH such as `1 M Tris-HCl pH 8.0`) is recognised. Each returns its spec, or
+ * undefined when the text is not its kind.
+ */
+export type SpecReader = (text: string, argument: string, row?: number) => ReagentSpec | undefined;
+const SPEC_READERS: SpecReader[] = [];
+
+/** Adds a reader to the hook above (e.g. STOCK handles); cached parses are dropped so they see it. */
+export function registerSpecReader(reader: SpecReader): void {
+  SPEC_READERS.push(reader);
+  specCache.clear();
+}
+
+/** Parses a reagent cell: a stock (`0.5 M NaOH`, `NaOH 1 M`, `1 N HCl`, `10% (w/v) NaOH`) or a catalogue name or formula. */
 export function parseReagentSpec(text: string, argument: string, row?: number): ReagentSpec {
   if (specCacheGeneration !== registryGeneration()) {
     specCache.clear();
@@ -56,23 +72,71 @@ export function parseReagentSpec(text: string, argument: string, row?: number): 
   return spec;
 }
 
-function parseReagentSpecUncached(text: string, argument: string, row?: number): ReagentSpec {
+/** A w/v stock holds at most 100 g per 100 mL: beyond that the solute outweighs a litre of water-like solution (stated limit). */
+export const MAX_MASS_STOCK_G_PER_L = 1000;
+
+function parseReagentSpecUncached(raw: string, argument: string, row?: number): ReagentSpec {
+  screenText(raw, argument, row);
+  const text = plainText(raw).trim();
+  for (const read of SPEC_READERS) {
+    const spec = read(text, argument, row);
+    if (spec) return spec;
+  }
   const massStock = splitMassStock(text);
   if (massStock) {
-    if (!(massStock.gramsPerL > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
+    if (!(massStock.gramsPerL > 0)) fail({ code: 'bad_amount', argument, row, received: quote(raw), expected: 'a stock concentration above zero' });
+    if (massStock.gramsPerL > MAX_MASS_STOCK_G_PER_L) {
+      fail({ code: 'bad_amount', argument, row, received: quote(raw), expected: `at most ${MAX_MASS_STOCK_G_PER_L} g/L (100% w/v): a solution cannot hold more solute than that per litre; check the number and its unit` });
+    }
     const resolved = resolveReagent(massStock.rest, argument, row);
     if (resolved.reagent.liquid) {
-      fail({ code: 'bad_argument', argument, row, received: quote(text), expected: `a solid or a formula before a mass concentration; ${resolved.reagent.name} is a liquid as sold (write its volume, or a stock in M)` });
+      fail({ code: 'bad_argument', argument, row, received: quote(raw), expected: `a solid or a formula before a mass concentration; ${resolved.reagent.name} is a liquid as sold (write its volume, or a stock in M)` });
     }
     // the hydrate as written (or named) sets the molar mass: 50 g/L of Na2HPO4·7H2O is 0.187 mol/L
-    return { resolved, stockM: massStock.gramsPerL / resolved.molarMassGPerMol };
+    return checkedStock({ resolved, stockM: massStock.gramsPerL / resolved.molarMassGPerMol }, raw, argument, row);
   }
   const stock = splitStock(text);
   if (stock) {
-    if (!(stock.concentrationM > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
-    return { resolved: resolveReagent(stock.rest, argument, row), stockM: stock.concentrationM };
+    const resolved = resolveReagent(stock.rest, argument, row);
+    const concentrationM = stock.normality === undefined ? stock.concentrationM : stock.normality / equivalentsPerMol(resolved.reagent, raw, argument, row);
+    if (!(concentrationM > 0)) fail({ code: 'bad_amount', argument, row, received: quote(raw), expected: 'a stock concentration above zero' });
+    if (resolved.reagent.liquid) {
+      fail({ code: 'bad_argument', argument, row, received: quote(raw), expected: `a compound before a molarity; ${resolved.reagent.name} is a liquid as sold (write its volume, or ${resolved.reagent.formula} for the compound)` });
+    }
+    return checkedStock({ resolved, stockM: concentrationM }, raw, argument, row);
   }
   return { resolved: resolveReagent(text, argument, row) };
+}
+
+/** Equivalents per mole for normality: strong acids and bases only, since elsewhere N depends on the reaction. */
+function equivalentsPerMol(reagent: Reagent, text: string, argument: string, row?: number): number {
+  if (reagent.normalityEqPerMol === undefined) {
+    fail({ code: 'bad_unit', argument, row, received: quote(text),
+      expected: `a molarity (M) for ${reagent.name}: normality (N) is taken only for strong acids and bases (HCl, HNO3, NaOH, KOH 1 eq/mol; H2SO4 2 eq/mol), since elsewhere it depends on the reaction` });
+  }
+  return reagent.normalityEqPerMol;
+}
+
+/**
+ * A stock that cannot exist is refused: more of one component than any aqueous solution holds (MAX_COMPONENT_M),
+ * more than the compound's solubility, or more concentrated than the pure liquid compound.
+ */
+function checkedStock(spec: ReagentSpec, text: string, argument: string, row?: number): ReagentSpec {
+  const { reagent } = spec.resolved;
+  const stockM = spec.stockM as number;
+  const refuse = (why: string): never => fail({ code: 'bad_amount', argument, row, received: quote(text), expected: `a stock that can exist: ${why}; check the number and its unit` });
+  if (reagent.solvent) fail({ code: 'bad_argument', argument, row, received: quote(text), expected: 'water as a row of its own, by volume: it is the solvent, not a stock' });
+  for (const s of reagent.systems) if (stockM * s.count > MAX_COMPONENT_M) refuse(`at most ${MAX_COMPONENT_M} mol/L of any one component, and this is ${Number((stockM * s.count).toPrecision(4))} mol/L of ${s.systemId}`);
+  for (const ion of reagent.ions) if (stockM * ion.count > MAX_COMPONENT_M) refuse(`at most ${MAX_COMPONENT_M} mol/L of any one component, and this is ${Number((stockM * ion.count).toPrecision(4))} mol/L of ${ion.ionId}`);
+  if (reagent.solubilityLimit && stockM > reagent.solubilityLimit.maxM) {
+    refuse(`${reagent.name} dissolves to at most about ${reagent.solubilityLimit.maxM} mol/L (${reagent.solubilityLimit.source})`);
+  }
+  const pure = allReagents().find((r) => r.liquid && r.liquid.massFraction === 1 && r.formula === reagent.formula);
+  if (pure?.liquid) {
+    const pureM = (pure.liquid.densityGPerML * 1000) / spec.resolved.molarMassGPerMol;
+    if (stockM > pureM * (1 + 1e-9)) refuse(`the pure compound (${pure.name}) is ${Number(pureM.toPrecision(4))} mol/L`);
+  }
+  return spec;
 }
 
 /** Moles per litre of what is dispensed by volume (stock or catalogue liquid), or undefined for a solid. */
@@ -85,12 +149,22 @@ export function molesPerLitreDispensed(spec: ReagentSpec): number | undefined {
 
 function rowMoles(spec: ReagentSpec, amount: number, unit: Unit, volumeL: number | undefined, row: MixtureRow): { moles: number; volumeL: number } {
   const value = amount * unit.toBase;
+  const reagent = spec.resolved.reagent;
+  const refuseUnit = (expected: string): never => fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit), expected });
+  if (reagent.solvent) {
+    // the solvent adds its volume and nothing else; the volume rules are those of any dispensed liquid
+    if (unit.kind !== 'volume') refuseUnit(`a volume (L mL µL) for ${reagent.name}, the solvent`);
+    return { moles: 0, volumeL: value };
+  }
+  if (reagent.excipient?.nominalMolarMass && (unit.kind === 'amount' || unit.kind === 'concentration')) {
+    refuseUnit(`a mass (g mg) or a mass concentration (g/L, % w/v) for ${reagent.name}: a mixture of molecules has only a nominal molar mass`);
+  }
   switch (unit.kind) {
     case 'mass':
-      if (spec.stockM !== undefined) fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit), expected: 'a volume (L mL µL) or an amount (mol mmol µmol) for a stock solution' });
+      if (spec.stockM !== undefined) refuseUnit('a volume (L mL µL) or an amount (mol mmol µmol) for a stock solution');
       {
         // a liquid as sold is weighed whole: only its assay fraction is the compound, and it brings its own volume
-        const liquid = spec.resolved.reagent.liquid;
+        const liquid = reagent.liquid;
         if (liquid) return { moles: (value * liquid.massFraction) / spec.resolved.molarMassGPerMol, volumeL: value / (liquid.densityGPerML * 1000) };
         return { moles: value / spec.resolved.molarMassGPerMol, volumeL: 0 };
       }
@@ -98,13 +172,24 @@ function rowMoles(spec: ReagentSpec, amount: number, unit: Unit, volumeL: number
       return { moles: value, volumeL: 0 };
     case 'concentration':
       return { moles: value * (volumeL ?? 1), volumeL: 0 };
+    case 'massConcentration':
+      if (spec.stockM !== undefined) refuseUnit('a volume (L mL µL) or an amount (mol mmol µmol) for a stock solution');
+      if (reagent.liquid && reagent.liquid.massFraction < 1) {
+        refuseUnit(`a volume or a mass for ${reagent.name}, a liquid as sold: a mass concentration would not say whether it counts the liquid or the compound`);
+      }
+      return { moles: (value * (volumeL ?? 1)) / spec.resolved.molarMassGPerMol, volumeL: 0 };
+    case 'normality':
+      if (spec.stockM !== undefined) refuseUnit('a volume (L mL µL) or an amount (mol mmol µmol) for a stock solution');
+      return { moles: (value / equivalentsPerMol(reagent, row.reagent, 'reagents', row.row)) * (volumeL ?? 1), volumeL: 0 };
     case 'volume': {
       const perL = molesPerLitreDispensed(spec);
       if (perL === undefined) {
-        fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit),
-          expected: `a mass or amount for ${spec.resolved.reagent.name}, a solid; a volume needs a stock (1 M ...) or a liquid with a catalogue density` });
+        const sold = allReagents().filter((r) => r.liquid && r.formula === reagent.formula).map((r) => r.name);
+        refuseUnit(sold.length > 0
+          ? `a mass or amount for ${reagent.name}, the pure compound; by volume write the liquid as sold (${sold.join(', ')}) or a stock such as 1 M ${reagent.formula}`
+          : `a mass or amount for ${reagent.name}, a solid; a volume needs a stock (1 M ...) or a liquid with a catalogue density`);
       }
-      return { moles: value * perL, volumeL: value };
+      return { moles: value * (perL as number), volumeL: value };
     }
   }
 }
@@ -115,11 +200,14 @@ export function addReagent(contents: Contents, reagent: Reagent, moles: number):
 }
 
 /**
- * Turns batch-record rows into moles in a final volume. The volume is needed when any row is a
- * mass, an amount or a volume; with only concentrations none is; with only stock volumes (and
+ * Turns batch-record rows into moles in a final volume. An empty mixture is refused (pure water is a
+ * `water` row). The volume is needed when any row is a mass, an amount or a volume; with only concentrations none is; with only stock volumes (and
  * concentrations) the volumes are added (additive-volume assumption).
  */
 export function buildContents(rows: MixtureRow[], volumeL: number | undefined): Contents {
+  if (rows.length === 0) {
+    fail({ code: 'bad_argument', argument: 'reagents', received: 'no reagent rows', expected: 'at least one row; for pure water write a row water (or WFI) with its volume' });
+  }
   const parsed = rows.map((row) => ({ row, spec: parseReagentSpec(row.reagent, 'reagents', row.row), unit: parseUnit(row.unit, 'units', row.row) }));
   let finalVolumeL = volumeL;
   if (finalVolumeL === undefined) {

@@ -104,7 +104,7 @@ export function molesToUnit(moles: number, spec: ReagentSpec, unit: Unit): numbe
       const grams = moles * spec.resolved.molarMassGPerMol / (liquid && spec.stockM === undefined ? liquid.massFraction : 1);
       return grams / unit.toBase;
     }
-    case 'concentration': throw new Error('a titrant amount is never a concentration');
+    default: throw new Error('a titrant amount is never a concentration');
   }
 }
 

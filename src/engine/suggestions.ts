@@ -1,0 +1,59 @@
+import type { Reagent } from '../catalogue';
+import { allReagents, perGeneration } from './customStore';
+import { normaliseName } from './nameIndex';
+
+/** Character trigrams of a normalised name, padded so word starts count. */
+function trigrams(text: string): Set<string> {
+  const padded = `  ${text} `;
+  const out = new Set<string>();
+  for (let i = 0; i + 3 <= padded.length; i++) out.add(padded.slice(i, i + 3));
+  return out;
+}
+
+// Built once per registry generation: the cache that keeps a misspelling's message cheap.
+const nameTrigrams = perGeneration(() =>
+  allReagents().flatMap((reagent) => [reagent.name, ...reagent.aliases].map((name) => ({ reagent, key: normaliseName(name), grams: trigrams(normaliseName(name)) }))));
+
+/** Edit distance with transpositions (optimal string alignment), stopping early above `limit`. */
+function editDistance(a: string, b: string, limit: number): number {
+  if (Math.abs(a.length - b.length) > limit) return limit + 1;
+  let prevPrev: number[] = [];
+  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const row = [i];
+    let best = i;
+    for (let j = 1; j <= b.length; j++) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      let d = Math.min(prev[j] + 1, row[j - 1] + 1, prev[j - 1] + cost);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) d = Math.min(d, prevPrev[j - 2] + 1);
+      row.push(d);
+      best = Math.min(best, d);
+    }
+    if (best > limit) return limit + 1;
+    prevPrev = prev;
+    prev = row;
+  }
+  return prev[b.length];
+}
+
+/**
+ * Catalogue reagent names closest to a text, best first, for an unknown-name message: names within one or two
+ * typing slips (a swapped, missing or extra letter: `Trsi`, `Glycin`), then trigram Dice ≥ 0.45.
+ * Example: closestReagentNames('Trsi') → ['Tris', ...].
+ */
+export function closestReagentNames(text: string, count = 3): string[] {
+  const key = normaliseName(text);
+  if (key.length < 3 || key.length > 100) return []; // no catalogue name is that long: not a misspelling
+  const query = trigrams(key);
+  const limit = key.length <= 5 ? 1 : 2;
+  const best = new Map<Reagent, number>();
+  for (const { reagent, key: name, grams } of nameTrigrams()) {
+    let shared = 0;
+    for (const t of query) if (grams.has(t)) shared++;
+    let score = (2 * shared) / (query.size + grams.size);
+    const slips = editDistance(key, name, limit);
+    if (slips <= limit) score = Math.max(score, 2 - slips); // a near-miss of the whole name beats any trigram overlap
+    if (score > (best.get(reagent) ?? 0)) best.set(reagent, score);
+  }
+  return [...best.entries()].filter(([, score]) => score >= 0.45).sort((a, b) => b[1] - a[1]).slice(0, count).map(([r]) => r.name);
+}
