@@ -35,7 +35,7 @@ function claimName(name: string, argument: string, taken: Map<string, string>): 
   const key = lookalikeKey(name);
   const owner = taken.get(key);
   if (owner !== undefined) {
-    fail({ code: 'bad_argument', argument, received: quote(name), expected: `a name of its own: it reads as ${quote(owner)}, already a catalogue or custom name` });
+    fail({ code: 'bad_argument', argument, received: quote(name), expected: `a name not already used: it reads as ${quote(owner)}, a catalogue or custom name` });
   }
   taken.set(key, name);
 }
