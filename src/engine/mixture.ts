@@ -1,7 +1,7 @@
 import type { Reagent } from '../catalogue';
 import { fail, quote } from './failure';
 import { MAX_COMPONENT_M } from './problem';
-import { allReagents, registryGeneration, resolveReagent } from './registry';
+import { allReagents, readsAs, registryGeneration, resolveReagent } from './registry';
 import type { ResolvedReagent } from './registry';
 import { plainText, screenText } from './textScreen';
 import { parseUnit, splitMassStock, splitStock } from './units';
@@ -76,7 +76,10 @@ export function parseReagentSpec(text: string, argument: string, row?: number): 
 export const MAX_MASS_STOCK_G_PER_L = 1000;
 
 function parseReagentSpecUncached(raw: string, argument: string, row?: number): ReagentSpec {
-  screenText(raw, argument, row);
+  screenText(raw, argument, row, (folded) => {
+    const stock = splitStock(folded) ?? splitMassStock(folded);
+    return readsAs(stock ? stock.rest : folded);
+  });
   const text = plainText(raw).trim();
   for (const read of SPEC_READERS) {
     const spec = read(text, argument, row);

@@ -5,7 +5,7 @@ import { compositionMassGPerMol, hydrateText, looksLikeFormula, parseFormula, sp
 import { molarMassOfReagent, reagentByFormula, reagentByFormulaIgnoringCase } from './formulaLookup';
 import { ambiguousChoices, reagentByCompactName, reagentByName, systemByName } from './nameIndex';
 import { closestReagentNames } from './suggestions';
-import { plainText, screenText } from './textScreen';
+import { firstCharacterProblem, plainText, screenText } from './textScreen';
 
 // Resolving a reagent text: names first (exact, then trade spellings), then formulas, then a refusal
 // that says what was meant where it can. The parts live in their own files:
@@ -173,12 +173,19 @@ function resolveReagentText(text: string, original: string, argument: string, ro
   });
 }
 
+/** What a text with its look-alike letters folded would name, for the message that refuses it. */
+export function readsAs(folded: string): string | undefined {
+  if (firstCharacterProblem(folded)) return undefined;
+  const plain = plainText(folded).trim();
+  return resolveReagentText(plain, plain, 'reagents').reagent.name;
+}
+
 /**
  * Resolves a catalogue name, alias, trade spelling or formula to a reagent.
  * Example: resolveReagent('Na2HPO4 heptahydrate', 'reagents').reagent.name → 'disodium hydrogen phosphate heptahydrate'.
  */
 export function resolveReagent(text: string, argument: string, row?: number): ResolvedReagent {
-  screenText(text, argument, row);
+  screenText(text, argument, row, readsAs);
   const plain = plainText(text).trim();
   return resolveReagentText(plain.replace(/\s*,\s*/g, (m, offset: number) => (offset > 0 ? ', ' : m)), text, argument, row);
 }

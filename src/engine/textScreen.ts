@@ -87,13 +87,23 @@ export function firstCharacterProblem(text: string): CharacterProblem | undefine
   return undefined;
 }
 
-/** Fails when the text holds a look-alike, full-width, invisible or control character, naming it and where. */
-export function screenText(text: string, argument: string, row?: number): void {
+/**
+ * Fails when the text holds a look-alike, full-width, invisible or control character, naming it and where.
+ * `readsAs`, given the text with look-alikes folded, may name what it would otherwise have meant.
+ */
+export function screenText(text: string, argument: string, row?: number, readsAs?: (folded: string) => string | undefined): void {
   const problem = firstCharacterProblem(text);
   if (problem) {
+    let meant: string | undefined;
+    try {
+      meant = readsAs?.(foldConfusables(text));
+    } catch {
+      meant = undefined; // the folded text names nothing either: the character alone is reported
+    }
     fail({
       code: 'bad_character', argument, row, received: quote(text.replace(/[\u0000-\u001f\u007f]/g, '?')), position: problem.position,
-      expected: `plain Latin letters, digits and the usual signs; character ${problem.position} is ${problem.codePoint} ${problem.description} (retype it)`,
+      expected: `plain Latin letters, digits and the usual signs; character ${problem.position} is ${problem.codePoint} ${problem.description} (retype it)`
+        + (meant ? `; retyped, it would read as ${meant}` : ''),
     });
   }
 }
