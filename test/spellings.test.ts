@@ -157,3 +157,27 @@ describe('spellings as batch records write them', () => {
   });
 
 });
+
+describe('hostile reagent texts', () => {
+  // Random joins of the pieces the spelling rules read: each either resolves or is a coded refusal, never an internal error.
+  test('1,000 random texts made of spelling pieces', () => {
+    const pieces = ['Na', 'Cl', '2', '·', 'H2O', ' ', ',', '(', ')', 'M', '%', 'w/v', 'pellets', 'conc.', 'sodium', 'x', '7', '.', 'N', 'µ', 'hydrate', 'hepta', 'Tris', '-', '\u0422', 'ACS', 'mol/l', 'water'];
+    let seed = 20261201;
+    const next = (): number => { seed = (seed * 1103515245 + 12345) % 2147483648; return seed / 2147483648; };
+    for (let i = 0; i < 1000; i++) {
+      let text = '';
+      const n = 1 + Math.floor(next() * 10);
+      for (let k = 0; k < n; k++) text += pieces[Math.floor(next() * pieces.length)];
+      try {
+        parseReagentSpec(text, 'reagents', 1);
+      } catch (error) {
+        expect(error).toBeInstanceOf(ProticError);
+      }
+    }
+  });
+
+  test('a text longer than any name is refused before any pattern runs on it', () => {
+    const error = failure(() => parseReagentSpec(`NaCl ${' '.repeat(20000)}5 M`, 'reagents', 1));
+    expect(error.message).toMatch(/a reagent of at most 200 characters/);
+  });
+});

@@ -3,7 +3,7 @@ import { fail, quote } from './failure';
 import { MAX_COMPONENT_M } from './problem';
 import { allReagents, readsAs, registryGeneration, resolveReagent } from './registry';
 import type { ResolvedReagent } from './registry';
-import { plainText, screenText } from './textScreen';
+import { checkLength, plainText, screenText } from './textScreen';
 import { parseUnit, splitMassStock, splitStock } from './units';
 import type { Unit } from './units';
 
@@ -85,6 +85,7 @@ function parseReagentSpecUncached(raw: string, argument: string, row?: number): 
     const spec = read(text, argument, row);
     if (spec) return spec;
   }
+  checkLength(text, argument, row);
   const massStock = splitMassStock(text);
   if (massStock) {
     if (!(massStock.gramsPerL > 0)) fail({ code: 'bad_amount', argument, row, received: quote(raw), expected: 'a stock concentration above zero' });

@@ -5,7 +5,7 @@ import { compositionMassGPerMol, hydrateText, looksLikeFormula, parseFormula, sp
 import { molarMassOfReagent, reagentByFormula, reagentByFormulaIgnoringCase } from './formulaLookup';
 import { ambiguousChoices, reagentByCompactName, reagentByName, systemByName } from './nameIndex';
 import { closestReagentNames } from './suggestions';
-import { firstCharacterProblem, plainText, screenText } from './textScreen';
+import { checkLength, firstCharacterProblem, plainText, screenText } from './textScreen';
 
 // Resolving a reagent text: names first (exact, then trade spellings), then formulas, then a refusal
 // that says what was meant where it can. The parts live in their own files:
@@ -141,7 +141,23 @@ function lookUpAsSold(text: string, original: string, argument: string, row?: nu
       + (sold.length > 0 ? `; the catalogue's liquids as sold: ${sold.join(', ')}` : '') });
 }
 
+// Nested attempts (a spelling tried inside another) fail without suggestions: only the outermost failure, the one
+// the user reads, pays for the closest-name search.
+let attemptDepth = 0;
+function suggest(text: string): string[] {
+  return attemptDepth > 1 ? [] : closestReagentNames(text);
+}
+
 function resolveReagentText(text: string, original: string, argument: string, row?: number): ResolvedReagent {
+  attemptDepth++;
+  try {
+    return resolveReagentTextAt(text, original, argument, row);
+  } finally {
+    attemptDepth--;
+  }
+}
+
+function resolveReagentTextAt(text: string, original: string, argument: string, row?: number): ResolvedReagent {
   const named = lookUpName(text, original, argument, row) ?? lookUpHydrate(text, original, argument, row)
     ?? lookUpConcentrated(text, original, argument, row) ?? lookUpAsSold(text, original, argument, row)
     ?? lookUpTradeSpelling(text, original, argument, row);
@@ -156,7 +172,7 @@ function resolveReagentText(text: string, original: string, argument: string, ro
       if (!(error instanceof ProticError) || error.failure.code !== 'bad_formula') throw error;
       const caseless = reagentByFormulaIgnoringCase(text); // NACL, KCL typed in capitals
       if (caseless) return byName(caseless);
-      const closest = closestReagentNames(text);
+      const closest = suggest(text);
       if (closest.length === 0) throw error;
       fail({ ...error.failure, expected: `${error.failure.expected}; or a catalogue name: closest ${closest.join(', ')}` });
     }
@@ -165,7 +181,7 @@ function resolveReagentText(text: string, original: string, argument: string, ro
     if (caseless) return byName(caseless);
   }
   refuseSystemName(text, original, argument, row);
-  const closest = closestReagentNames(text);
+  const closest = suggest(text);
   fail({
     code: 'unknown_reagent', argument, row, received: quote(original),
     expected: 'a catalogue name or alias (sodium acetate trihydrate, Tris), a formula (Na2HPO4·7H2O) or a stock such as 1 M HCl; '
@@ -177,7 +193,12 @@ function resolveReagentText(text: string, original: string, argument: string, ro
 export function readsAs(folded: string): string | undefined {
   if (firstCharacterProblem(folded)) return undefined;
   const plain = plainText(folded).trim();
-  return resolveReagentText(plain, plain, 'reagents').reagent.name;
+  attemptDepth++; // a guess for a message: no suggestions of its own
+  try {
+    return resolveReagentText(plain, plain, 'reagents').reagent.name;
+  } finally {
+    attemptDepth--;
+  }
 }
 
 /**
@@ -185,6 +206,7 @@ export function readsAs(folded: string): string | undefined {
  * Example: resolveReagent('Na2HPO4 heptahydrate', 'reagents').reagent.name → 'disodium hydrogen phosphate heptahydrate'.
  */
 export function resolveReagent(text: string, argument: string, row?: number): ResolvedReagent {
+  checkLength(text, argument, row);
   screenText(text, argument, row, readsAs);
   const plain = plainText(text).trim();
   return resolveReagentText(plain.replace(/\s*,\s*/g, (m, offset: number) => (offset > 0 ? ', ' : m)), text, argument, row);

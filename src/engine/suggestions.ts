@@ -10,9 +10,20 @@ function trigrams(text: string): Set<string> {
   return out;
 }
 
-// Built once per registry generation: the cache that keeps a misspelling's message cheap.
-const nameTrigrams = perGeneration(() =>
-  allReagents().flatMap((reagent) => [reagent.name, ...reagent.aliases].map((name) => ({ reagent, key: normaliseName(name), grams: trigrams(normaliseName(name)) }))));
+// Built once per registry generation: the cache that keeps a misspelling's message cheap. An inverted index
+// (trigram → names holding it) counts shared trigrams without visiting names that share none.
+const nameTrigrams = perGeneration(() => {
+  const entries = allReagents().flatMap((reagent) => [reagent.name, ...reagent.aliases].map((name) => ({ reagent, key: normaliseName(name), size: trigrams(normaliseName(name)).size })));
+  const postings = new Map<string, number[]>();
+  entries.forEach((entry, i) => {
+    for (const gram of trigrams(entry.key)) {
+      const list = postings.get(gram);
+      if (list) list.push(i);
+      else postings.set(gram, [i]);
+    }
+  });
+  return { entries, postings, shared: new Int32Array(entries.length) };
+});
 
 /** Edit distance with transpositions (optimal string alignment), stopping early above `limit`. */
 function editDistance(a: string, b: string, limit: number): number {
@@ -47,13 +58,17 @@ export function closestReagentNames(text: string, count = 3): string[] {
   const query = trigrams(key);
   const limit = key.length <= 5 ? 1 : 2;
   const best = new Map<Reagent, number>();
-  for (const { reagent, key: name, grams } of nameTrigrams()) {
-    let shared = 0;
-    for (const t of query) if (grams.has(t)) shared++;
-    let score = (2 * shared) / (query.size + grams.size);
-    const slips = editDistance(key, name, limit);
-    if (slips <= limit) score = Math.max(score, 2 - slips); // a near-miss of the whole name beats any trigram overlap
-    if (score > (best.get(reagent) ?? 0)) best.set(reagent, score);
-  }
+  const { entries, postings, shared } = nameTrigrams();
+  shared.fill(0);
+  for (const gram of query) for (const i of postings.get(gram) ?? []) shared[i]++;
+  entries.forEach((entry, i) => {
+    let score = (2 * shared[i]) / (query.size + entry.size);
+    // a near-miss of the whole name (a swapped, missing or extra letter) beats any trigram overlap
+    if (Math.abs(entry.key.length - key.length) <= limit) {
+      const slips = editDistance(key, entry.key, limit);
+      if (slips <= limit) score = Math.max(score, 2 - slips);
+    }
+    if (score > (best.get(entry.reagent) ?? 0)) best.set(entry.reagent, score);
+  });
   return [...best.entries()].filter(([, score]) => score >= 0.45).sort((a, b) => b[1] - a[1]).slice(0, count).map(([r]) => r.name);
 }

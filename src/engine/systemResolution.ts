@@ -4,7 +4,7 @@ import { ProticError, fail, quote } from './failure';
 import { ambiguousChoices, systemByName } from './nameIndex';
 import { molarMassOfReagent } from './formulaLookup';
 import { resolveReagent } from './registry';
-import { plainText, screenText } from './textScreen';
+import { checkLength, plainText, screenText } from './textScreen';
 
 /**
  * Resolves a system name, alias or id, or a reagent that releases exactly one system. A reagent that releases two
@@ -14,6 +14,7 @@ import { plainText, screenText } from './textScreen';
 export function resolveSystem(value: unknown, argument = 'system'): AcidSystem {
   const raw = typeof value === 'string' ? value : '';
   if (raw.trim() === '') fail({ code: 'unknown_system', argument, received: quote(value), expected: 'a system name (phosphate, citrate, Tris, ...) or a reagent of that system' });
+  checkLength(raw, argument);
   screenText(raw, argument);
   const text = plainText(raw);
   const byName = systemByName(text);

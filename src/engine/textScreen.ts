@@ -40,6 +40,16 @@ const INVISIBLE_NAMES: Record<string, string> = {
   '\u2060': 'WORD JOINER', '\ufeff': 'ZERO WIDTH NO-BREAK SPACE (byte-order mark)', '\u00ad': 'SOFT HYPHEN', '\u0000': 'NULL',
 };
 
+/** No catalogue name, formula or stock is longer; a longer text is refused before any pattern is tried on it. */
+export const MAX_REAGENT_TEXT = 200;
+
+/** Fails for a reagent text longer than MAX_REAGENT_TEXT characters. */
+export function checkLength(text: string, argument: string, row?: number): void {
+  if (text.length > MAX_REAGENT_TEXT) {
+    fail({ code: 'bad_argument', argument, row, received: `a text of ${text.length} characters, ${quote(text)}`, expected: `a reagent of at most ${MAX_REAGENT_TEXT} characters: a name, a formula or a stock such as 1 M HCl` });
+  }
+}
+
 export interface CharacterProblem {
   /** 1-based position in code points */
   position: number;
