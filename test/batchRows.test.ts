@@ -1,3 +1,4 @@
+import { readFileSync } from 'fs';
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
 import type { SheetValue } from '../scripts/lib/sheetEngine';
 import { applyCustomDefinitions, clearCustomDefinitions, molarMassGPerMol, pKw } from '../src/engine';
@@ -194,5 +195,19 @@ describe('deep nesting is a coded failure', () => {
     expect(errorOf(one(`=PROTIC.MOLARMASS("${deep}")`)).message).toMatch(/not a chemical formula at character 14\. .*at most 12 nested parentheses or brackets/);
     expect(errorOf(one(`=PROTIC.PHMIX("${deep}",1,"g",1)`)).error).toBe('#VALUE!');
     expect(one('=PROTIC.MOLARMASS("K4[Fe(CN)6]·3H2O")') as number).toBeCloseTo(422.39, 1); // CRC Handbook (from memory)
+  });
+});
+
+describe('the README examples of units and rows print what the sheet gives', () => {
+  const readme = readFileSync('README.md', 'utf8').replace(/\s*\n\s*/g, ' ');
+  test.each([
+    ['=PROTIC.TITRANT(7.4,{"KH2PO4";"Na2HPO4"},{3.4;3.55},"g",1,"1 N NaOH")', '13.913'],
+    ['=PROTIC.PHMIX({"KH2PO4";"Na2HPO4";"NaCl"},{3.4;3.55;0.9},{"g";"g";"% w/v"},1)', '6.8015'],
+    ['=PROTIC.PHMIX({"1 M Tris";"water"},{100;900},"mL")', '10.533'],
+    ['=PROTIC.PHMIX({"L-arginine monohydrochloride";"L-histidine";"sucrose";"polysorbate 80";"WFI"},{10.5;1.55;80;0.2;900},{"g";"g";"g";"g";"mL"},1)', '7.2477'],
+  ])('%s → %s', (formula, printed) => {
+    expect(readme).toContain(`\`${formula}\` → ${printed}`);
+    const decimals = printed.split('.')[1].length;
+    expect(Math.abs((one(formula) as number) - Number(printed))).toBeLessThanOrEqual(0.5 * 10 ** -decimals * (1 + 1e-9));
   });
 });
