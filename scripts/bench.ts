@@ -10,6 +10,7 @@ import type { MixtureRow } from '../src/engine';
 import { evaluateSheet } from './lib/sheetEngine';
 import { HOSTILE, VALID } from './lib/hostileCases';
 import * as impl from '../src/functions/impl';
+import { nameLookupBench } from './bench/names';
 
 const MIXTURES: Record<string, MixtureRow[]> = {
   'one-system buffer (phosphate)': [
@@ -136,6 +137,7 @@ function main(): void {
   const ln1 = tableInChild('ln1');
   const bundle = bundleKiB();
   const hostile = slowestHostileCell();
+  const names = nameLookupBench();
   const meanEvaluations = Object.values(engine).reduce((s, e) => s + e.evaluationsPerSolve, 0) / Object.keys(engine).length;
   const results = {
     date: new Date().toISOString(),
@@ -145,6 +147,7 @@ function main(): void {
     sheet: { rows: TABLE_ROWS, phTable: ph, lnTable: ln, phOverLn: ph.seconds / ln.seconds, lnOneCellTable: ln1, phOverLnOneCell: ph.seconds / ln1.seconds },
     functionsBundleKiB: bundle,
     slowestHostileCell: hostile,
+    nameLookup: names.figures,
     targets: {
       evaluationsPerSolveAtMost6: meanEvaluations <= 6,
       solveWithin10Evaluations: Object.values(engine).every((e) => e.solveOverEvaluation <= 10),
@@ -168,6 +171,8 @@ function main(): void {
     '',
     `functions bundle (production, minified): ${bundle.toFixed(1)} KiB (target ≤ 150 KB)`,
     `slowest cell over the hostile inputs: ${hostile.ms.toFixed(1)} ms (${hostile.call}) (target ≤ 50 ms)`,
+    '',
+    ...names.lines,
     '',
     `targets met: ${Object.entries(results.targets).map(([k, v]) => `${k} ${v ? 'yes' : 'NO'}`).join(', ')}`,
   ];

@@ -211,3 +211,14 @@ describe('the README examples of units and rows print what the sheet gives', () 
     expect(Math.abs((one(formula) as number) - Number(printed))).toBeLessThanOrEqual(0.5 * 10 ** -decimals * (1 + 1e-9));
   });
 });
+
+describe('MOLARMASS reads the trade spellings too', () => {
+  test.each([
+    ['Tris·HCl', 'Tris hydrochloride'], ['NACL', 'NaCl'], ['Na2HPO4 heptahydrate', 'Na2HPO4·7H2O'], ['citric acid, monohydrate', 'citric acid monohydrate'],
+  ])('MOLARMASS(%p) = MOLARMASS(%p)', (typed, canonical) => {
+    expect(one(`=PROTIC.MOLARMASS("${typed}")`)).toBe(one(`=PROTIC.MOLARMASS("${canonical}")`));
+  });
+  test('a liquid as sold has no single molar mass, however it is written', () => {
+    expect(errorOf(one('=PROTIC.MOLARMASS("HCl 37%")')).message).toMatch(/a liquid as sold has no single molar mass/);
+  });
+});

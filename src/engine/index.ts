@@ -17,7 +17,7 @@ export {
   allReagents, allSystems, closestReagentNames, compactName, molarMassOfReagent, normaliseName, reagentByName, registryGeneration,
   resolveReagent, resolveSystem, setCustomDefinitions, systemFor,
 } from './registry';
-export { firstCharacterProblem, foldConfusables, plainText, screenText } from './textScreen';
+export { MAX_REAGENT_TEXT, firstCharacterProblem, foldConfusables, plainText, screenText } from './textScreen';
 export type { CharacterProblem } from './textScreen';
 export type { ResolvedReagent } from './registry';
 export { bufferCapacity, ionLabel, modelWarning, speciesRows } from './results';

@@ -123,6 +123,7 @@ export function screenText(text: string, argument: string, row?: number, readsAs
  * digits, no-break spaces), typographic dashes and quotes made plain.
  */
 export function plainText(text: string): string {
+  if (/^[\x20-\x7e]*$/.test(text)) return text; // plain ASCII: nothing to fold
   return text.replace(/½/g, '0.5').normalize('NFKC').replace(/[‐‑‒–—]/g, '-').replace(/[’‘′]/g, "'").replace(/[\t\n\r]/g, ' ');
 }
 
