@@ -109,7 +109,9 @@ describe('units column and stocks as typed', () => {
     expect(errorOf(one('=PROTIC.PHMIX("1000% w/v NaOH",1,"mL",1)')).message).toMatch(/at most 1000 g\/L \(100% w\/v\)/);
     expect(errorOf(one('=PROTIC.PHMIX("15 M HCl",1,"mL",1)')).message).toMatch(/hydrogen chloride dissolves to at most about 14 mol\/L/);
     expect(errorOf(one('=PROTIC.PHMIX("20 M acetic acid",1,"mL",1)')).message).toMatch(/the pure compound \(glacial acetic acid\) is 17\.47 mol\/L/);
+    expect(errorOf(one('=PROTIC.PHMIX("19 M H2SO4",1,"mL",1)')).message).toMatch(/sulfuric acid dissolves to at most about 18\.8 mol\/L/);
     expect(typeof one('=PROTIC.PHMIX("12 M HCl",1,"mL",1)')).toBe('number');
+    expect(typeof one('=PROTIC.PHMIX("18 M H2SO4",1,"mL",1)')).toBe('number');
     expect(typeof one('=PROTIC.PHMIX("NaCl 5 M",10,"mL",1)')).toBe('number');
   });
 });

@@ -113,7 +113,8 @@ export const REAGENTS: readonly Reagent[] = [
   r({ id: 'nalac', name: 'sodium lactate', formula: 'NaC3H5O3', system: 'lactate', ions: { 'Na+': 1 }, mm: 112.06 }),
   r({ id: 'maleic', name: 'maleic acid', formula: 'C4H4O4', system: 'maleate', mm: 116.07 }),
   // sulfate
-  r({ id: 'h2so4', name: 'sulfuric acid', aliases: ['sulphuric acid'], formula: 'H2SO4', system: 'sulfate', mm: 98.08, eq: 2 }),
+  r({ id: 'h2so4', name: 'sulfuric acid', aliases: ['sulphuric acid'], formula: 'H2SO4', system: 'sulfate', mm: 98.08, eq: 2,
+    solubility: { maxM: 18.8, source: 'CRC Handbook, the pure acid, density 1.83 g/mL at 20 °C, is 18.7 mol/L (from memory)' } }),
   r({ id: 'h2so4-96', name: 'sulfuric acid 96%', aliases: ['sulfuric acid 96 %', 'sulphuric acid 96%', 'concentrated sulfuric acid'], formula: 'H2SO4', system: 'sulfate', eq: 2,
     liquid: { densityGPerML: 1.835, massFraction: 0.96, source: CRC_DENSITY } }),
   r({ id: 'na2so4', name: 'sodium sulfate', aliases: ['sodium sulfate anhydrous', 'sodium sulphate'], formula: 'Na2SO4', system: 'sulfate', ions: { 'Na+': 2 }, mm: 142.04 }),
@@ -166,7 +167,8 @@ export const REAGENTS: readonly Reagent[] = [
   r({ id: 'naoh', name: 'sodium hydroxide', aliases: ['caustic soda'], formula: 'NaOH', ions: { 'Na+': 1 }, mm: 40.00, eq: 1 }),
   r({ id: 'naoh-50', name: 'sodium hydroxide 50%', aliases: ['sodium hydroxide 50 %', 'caustic soda 50%'], formula: 'NaOH', ions: { 'Na+': 1 }, eq: 1,
     liquid: { densityGPerML: 1.525, massFraction: 0.50, source: CRC_DENSITY } }),
-  r({ id: 'koh', name: 'potassium hydroxide', aliases: ['caustic potash'], formula: 'KOH', ions: { 'K+': 1 }, mm: 56.11, eq: 1 }),
+  r({ id: 'koh', name: 'potassium hydroxide', aliases: ['caustic potash'], formula: 'KOH', ions: { 'K+': 1 }, mm: 56.11, eq: 1,
+    solubility: { maxM: 15, source: 'CRC Handbook, KOH about 121 g per 100 g water at 25 °C, a 55 % w/w solution near 15 mol/L (from memory)' } }),
   // inert salts
   r({ id: 'nacl', name: 'sodium chloride', aliases: ['salt'], formula: 'NaCl', ions: { 'Na+': 1, 'Cl-': 1 }, mm: 58.44,
     solubility: { maxM: 5.45, source: 'CRC Handbook, NaCl 36.0 g per 100 g water at 25 °C, a 26.5 % w/w solution of density 1.197, 5.43 mol/L (from memory)' } }),
