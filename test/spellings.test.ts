@@ -181,3 +181,22 @@ describe('hostile reagent texts', () => {
     expect(error.message).toMatch(/a reagent of at most 200 characters/);
   });
 });
+
+describe('spelling rules never change what a text names', () => {
+  test('a hydrate the catalogue does not list is the named reagent with the water written', () => {
+    const spec = parseReagentSpec('sucrose·H2O', 'reagents', 1);
+    expect(spec.resolved.reagent.id).toBe('sucrose');
+    expect(spec.resolved.molarMassGPerMol).toBeCloseTo(342.2965 + 18.015, 2); // CIAAW 2021 atomic weights
+    expect(parseReagentSpec('sodium acetate·3H2O', 'reagents', 1).resolved.reagent.id).toBe('naoac-3');
+    expect(failure(() => parseReagentSpec('sodium acetate trihydrate·2H2O', 'reagents', 1)).message).toMatch(/already says its water/);
+  });
+  test('"concentrated" only for the grades the trade calls so', () => {
+    expect(parseReagentSpec('conc. H2SO4', 'reagents', 1).resolved.reagent.id).toBe('h2so4-96');
+    expect(parseReagentSpec('conc. H3PO4', 'reagents', 1).resolved.reagent.id).toBe('h3po4-85');
+    expect(failure(() => parseReagentSpec('conc. NaOH', 'reagents', 1)).message).toMatch(/the catalogue has no concentrated sodium hydroxide/);
+  });
+  test('a parenthesis that names another reagent is refused', () => {
+    expect(failure(() => parseReagentSpec('sodium chloride (KCl)', 'reagents', 1)).message).toMatch(/sodium chloride and potassium chloride differ/);
+    expect(parseReagentSpec('sodium acetate (trihydrate)', 'reagents', 1).resolved.reagent.id).toBe('naoac-3');
+  });
+});

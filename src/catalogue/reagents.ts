@@ -48,7 +48,7 @@ export function r(input: ReagentInput): Reagent {
 export const REAGENTS: readonly Reagent[] = [
   // phosphate
   r({ id: 'h3po4', name: 'phosphoric acid', aliases: ['orthophosphoric acid'], formula: 'H3PO4', system: 'phosphate', mm: 97.99 }),
-  r({ id: 'h3po4-85', name: 'phosphoric acid 85%', aliases: ['phosphoric acid 85 %', 'ortho-phosphoric acid 85%'], formula: 'H3PO4', system: 'phosphate',
+  r({ id: 'h3po4-85', name: 'phosphoric acid 85%', aliases: ['phosphoric acid 85 %', 'ortho-phosphoric acid 85%', 'concentrated phosphoric acid'], formula: 'H3PO4', system: 'phosphate',
     liquid: { densityGPerML: 1.685, massFraction: 0.85, source: CRC_DENSITY } }),
   r({ id: 'nah2po4', name: 'sodium dihydrogen phosphate', aliases: ['monosodium phosphate', 'sodium phosphate monobasic'], formula: 'NaH2PO4', system: 'phosphate', ions: { 'Na+': 1 }, mm: 119.98 }),
   r({ id: 'nah2po4-1', name: 'sodium dihydrogen phosphate monohydrate', aliases: ['sodium phosphate monobasic monohydrate'], formula: 'NaH2PO4', hydrateWater: 1, system: 'phosphate', ions: { 'Na+': 1 }, mm: 137.99 }),

@@ -64,7 +64,12 @@ function lookUpHydrate(text: string, original: string, argument: string, row?: n
   const sameForm = allReagents().find((r) => r.formula === base.reagent.formula && r.hydrateWater === hydrate.hydrateWater && !r.liquid
     && r.systems.length === base.reagent.systems.length && r.excipient === base.reagent.excipient);
   if (sameForm) return byName(sameForm);
-  return lookUpFormula(`${base.reagent.formula}·${hydrate.hydrateWater}H2O`, original, argument, row);
+  if (base.reagent.liquid || base.reagent.solvent) {
+    fail({ code: 'bad_argument', argument, row, received: quote(original), expected: `a solid with its water: ${base.reagent.name} is ${base.reagent.solvent ? 'the solvent' : 'a liquid as sold'}` });
+  }
+  // a hydrate the catalogue does not list: the named reagent, weighed with the water written
+  const water = compositionMassGPerMol({ H: 2, O: 1 }) * hydrate.hydrateWater;
+  return { reagent: base.reagent, molarMassGPerMol: molarMassOfReagent(base.reagent) + water, hydrateWater: hydrate.hydrateWater, matchedBy: 'formula' };
 }
 
 function lookUpFormula(text: string, original: string, argument: string, row?: number): ResolvedReagent | undefined {
@@ -80,7 +85,8 @@ function lookUpConcentrated(text: string, original: string, argument: string, ro
   const match = /^(?:conc\.?|concentrated)\s+(.+)$/i.exec(text);
   if (!match) return undefined;
   const compound = resolveReagentText(match[1], original, argument, row).reagent;
-  const liquids = allReagents().filter((r) => r.liquid && r.formula === compound.formula && r.liquid.massFraction < 1);
+  // only grades the trade calls concentrated (HCl 37 %, H2SO4 96 %, ...): their catalogue entries carry that alias
+  const liquids = allReagents().filter((r) => r.liquid && r.formula === compound.formula && r.aliases.some((a) => /^concentrated /i.test(a)));
   if (liquids.length === 1) return byName(liquids[0]);
   fail({ code: 'unknown_reagent', argument, row, received: quote(original),
     expected: liquids.length === 0 ? `a stock or a liquid as sold: the catalogue has no concentrated ${compound.name}` : `one of ${liquids.map((l) => l.name).join(', ')}` });
