@@ -47,6 +47,8 @@ describe('excipients: accepted in every mixture function, with no acid–base ef
     expect(errorOf(one('=PROTIC.PHMIX({"KH2PO4";"polysorbate 80"},{3.4;1},{"g";"mM"},1)')).message)
       .toMatch(/polysorbate 80: a mixture of molecules has only a nominal molar mass/);
     expect(errorOf(one('=PROTIC.PHMIX({"KH2PO4";"C12H22O11"},{3.4;10},"g",1)')).message).toMatch(/shared by sucrose, trehalose anhydrous/);
+    // no equilibrium bounds an excipient, so its mass per litre is bounded itself
+    expect(errorOf(one('=PROTIC.PHMIX({"KH2PO4";"sucrose"},{3.4;2000},"g",1)')).message).toMatch(/sucrose at 2000 g\/L; expected at most 1000 g per litre/);
   });
 });
 
@@ -222,5 +224,12 @@ describe('MOLARMASS reads the trade spellings too', () => {
   });
   test('a liquid as sold has no single molar mass, however it is written', () => {
     expect(errorOf(one('=PROTIC.MOLARMASS("HCl 37%")')).message).toMatch(/a liquid as sold has no single molar mass/);
+  });
+});
+
+describe('water and excipients are not titrants', () => {
+  test.each(['water', 'sucrose'])('TITRANT and CURVE with %s are refused, not "it lowers the pH"', (titrant) => {
+    expect(errorOf(one(`=PROTIC.TITRANT(7.4,A1:A2,B1:B2,C1:C2,1,"${titrant}")`, BUFFER)).message).toMatch(/moves no pH/);
+    expect(errorOf(one(`=PROTIC.CURVE(A1:A2,B1:B2,C1:C2,1,"${titrant}",10,3)`, BUFFER)).message).toMatch(/moves no pH/);
   });
 });

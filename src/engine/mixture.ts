@@ -229,6 +229,11 @@ export function buildContents(rows: MixtureRow[], volumeL: number | undefined): 
   const contents: Contents = { systemMoles: new Map(), ionMoles: new Map(), volumeL: finalVolumeL ?? 1, rows: [] };
   for (const p of parsed) {
     const { moles, volumeL: rowVolumeL } = rowMoles(p.spec, p.row.amount, p.unit, finalVolumeL, p.row);
+    // an excipient changes no equilibrium, so the component cap never sees it: its mass per litre is bounded here
+    if (p.spec.resolved.reagent.excipient && (moles * p.spec.resolved.molarMassGPerMol) / contents.volumeL > MAX_MASS_STOCK_G_PER_L) {
+      fail({ code: 'out_of_range', argument: 'amounts', row: p.row.row, received: `${p.spec.resolved.reagent.name} at ${Number(((moles * p.spec.resolved.molarMassGPerMol) / contents.volumeL).toPrecision(4))} g/L`,
+        expected: `at most ${MAX_MASS_STOCK_G_PER_L} g per litre of the final solution; check the amount, its unit and the volume` });
+    }
     addReagent(contents, p.spec.resolved.reagent, moles);
     contents.rows.push({ row: p.row.row, text: p.row.reagent, reagent: p.spec.resolved.reagent, moles, volumeL: rowVolumeL });
   }
