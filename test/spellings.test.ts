@@ -200,3 +200,10 @@ describe('spelling rules never change what a text names', () => {
     expect(parseReagentSpec('sodium acetate (trihydrate)', 'reagents', 1).resolved.reagent.id).toBe('naoac-3');
   });
 });
+
+describe('isomers stay apart', () => {
+  test('trehalose anhydrous·2H2O is trehalose dihydrate; sucrose·2H2O is not', () => {
+    expect(parseReagentSpec('trehalose anhydrous·2H2O', 'reagents', 1).resolved.reagent.id).toBe('trehalose-2');
+    expect(parseReagentSpec('sucrose·2H2O', 'reagents', 1).resolved.reagent.id).toBe('sucrose');
+  });
+});

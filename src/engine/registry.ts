@@ -62,7 +62,9 @@ function lookUpHydrate(text: string, original: string, argument: string, row?: n
     fail({ code: 'bad_argument', argument, row, received: quote(original), expected: `one hydrate: ${base.reagent.name} already says its water (${base.reagent.hydrateWater} H2O)` });
   }
   const sameForm = allReagents().find((r) => r.formula === base.reagent.formula && r.hydrateWater === hydrate.hydrateWater && !r.liquid
-    && r.systems.length === base.reagent.systems.length && r.excipient === base.reagent.excipient);
+    && r.systems.length === base.reagent.systems.length && !r.excipient === !base.reagent.excipient
+    // isomeric excipients share a formula (sucrose, trehalose): only the same compound's hydrate counts
+    && (!r.excipient || r.id.replace(/-\d+$/, '') === base.reagent.id.replace(/-\d+$/, '')));
   if (sameForm) return byName(sameForm);
   if (base.reagent.liquid || base.reagent.solvent) {
     fail({ code: 'bad_argument', argument, row, received: quote(original), expected: `a solid with its water: ${base.reagent.name} is ${base.reagent.solvent ? 'the solvent' : 'a liquid as sold'}` });
