@@ -16,6 +16,7 @@ import { benchXlsx } from './bench/xlsx';
 import { qaBench } from './bench/qa';
 import { inverseBench } from './bench/inverse';
 import { cellsBench } from './bench/cells';
+import { nameLookupBench } from './bench/names';
 
 const MIXTURES: Record<string, MixtureRow[]> = {
   'one-system buffer (phosphate)': [
@@ -149,6 +150,7 @@ async function main(): Promise<void> {
   const qa = qaBench();
   const inverse = inverseBench();
   const cells = cellsBench();
+  const names = nameLookupBench();
   const meanEvaluations = Object.values(engine).reduce((s, e) => s + e.evaluationsPerSolve, 0) / Object.keys(engine).length;
   const results = {
     date: new Date().toISOString(),
@@ -164,6 +166,7 @@ async function main(): Promise<void> {
     uncertainty: qa.results,
     inverse: inverse.results,
     cells: cells.results,
+    nameLookup: names.figures,
     targets: {
       evaluationsPerSolveAtMost6: meanEvaluations <= 6,
       solveWithin10Evaluations: Object.values(engine).every((e) => e.solveOverEvaluation <= 10),
@@ -203,6 +206,8 @@ async function main(): Promise<void> {
     ...inverse.lines,
     '',
     ...cells.lines,
+    '',
+    ...names.lines,
     '',
     `targets met: ${Object.entries(results.targets).map(([k, v]) => `${k} ${v ? 'yes' : 'NO'}`).join(', ')}`,
   ];

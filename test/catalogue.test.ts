@@ -22,7 +22,14 @@ describe('catalogue consistency', () => {
 
   // A reagent is neutral: its systems' most protonated forms, less the protons its strong ions' charge
   // takes away, plus those ions, make up its formula, but for whole water molecules (NaOH = Na⁺ + H2O − H⁺).
-  test.each(REAGENTS.map((r) => [r.id, r] as const))('%s: formula = systems − protons lost + strong ions (± water)', (_, r) => {
+  // An excipient releases nothing: its formula is its own, and it must carry no system and no ion.
+  test.each(REAGENTS.filter((r) => r.excipient).map((r) => [r.id, r] as const))('%s: an excipient releases no system and no ion, and says why', (_, r) => {
+    expect(r.systems).toEqual([]);
+    expect(r.ions).toEqual([]);
+    expect(r.excipient!.source.length).toBeGreaterThan(10);
+  });
+
+  test.each(REAGENTS.filter((r) => !r.excipient).map((r) => [r.id, r] as const))('%s: formula = systems − protons lost + strong ions (± water)', (_, r) => {
     const expected: Record<string, number> = {};
     const add = (composition: Record<string, number>, times: number): void => {
       for (const [el, n] of Object.entries(composition)) expected[el] = (expected[el] ?? 0) + n * times;
@@ -65,9 +72,9 @@ describe('catalogue consistency', () => {
     for (const choice of a.choices) expect(reagentByName(choice)).toBeDefined();
   });
 
-  test('no two solid reagents share an anhydrous composition and hydrate count', () => {
+  test('no two solid reagents share an anhydrous composition and hydrate count (excipient isomers aside)', () => {
     const seen = new Map<string, string>();
-    for (const r of REAGENTS.filter((x) => !x.liquid)) {
+    for (const r of REAGENTS.filter((x) => !x.liquid && !x.excipient)) {
       const key = `${compositionKey(parseFormula(r.formula).anhydrous)}·${r.hydrateWater}`;
       expect(seen.get(key)).toBeUndefined();
       seen.set(key, r.id);

@@ -24,6 +24,8 @@ const CASES: [FailureCode, () => unknown, RegExp, string][] = [
     /reagents, row 2: the name does not say which form\. Received "sodium citrate"; expected one of trisodium citrate \(258\.07 g\/mol\), trisodium citrate dihydrate \(294\.10 g\/mol\), .*or a formula with its water such as Na3C6H5O7·2H2O/, '#VALUE!'],
   ['unknown_system', () => impl.fractions('zircon', 7), /system: unknown acid system\. Received "zircon"/, '#VALUE!'],
   ['bad_formula', () => impl.molarMass('Na2HPO4)'), /formula: not a chemical formula at character 8/, '#VALUE!'],
+  ['bad_character', () => impl.ph([['\u0422ris base']], [[1]], 'g', 1),
+    /reagents, row 1: a character that is not plain text at character 1\. Received "\u0422ris base"; expected .*U\+0422 CYRILLIC CAPITAL LETTER TE, which looks like Latin T/, '#VALUE!'],
   ['bad_unit', () => impl.ph([P], [G], 'gallons', 1), /units, row 1: unit not allowed here\. Received "gallons"; expected one of g mg kg µg/, '#VALUE!'],
   ['bad_model', () => impl.ph([P], [G], 'g', 1, 25, 'pitzer'), /model: unknown activity model\. Received "pitzer"; expected davies, bates-guggenheim or ideal/, '#VALUE!'],
   ['bad_amount', () => impl.ph([P], [[3.4, -1]], 'g', 1), /amounts, row 2: amount not usable\. Received -1; expected a number zero or above/, '#VALUE!'],

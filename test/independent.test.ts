@@ -104,7 +104,8 @@ function polynomialRoot(systems: { pKa: number[]; z0: number; totalM: number }[]
   return s * x;
 }
 
-const candidates = ACID_SYSTEMS.filter((s) => s.id !== 'sulfate');
+// systems whose data hold over the 5–45 °C the properties draw from
+const candidates = ACID_SYSTEMS.filter((s) => s.id !== 'sulfate' && s.temperatureRangeC[0] <= 5 && s.temperatureRangeC[1] >= 45);
 /** Up to three distinct systems, 10^min to 10^max mol/L each. */
 const systemPicks = (log10Min: number, log10Max: number) => fc.array(fc.record({
   system: fc.integer({ min: 0, max: candidates.length - 1 }), log10C: fc.double({ min: log10Min, max: log10Max, noNaN: true }),

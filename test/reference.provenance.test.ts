@@ -100,15 +100,16 @@ describe('provenance on every constant', () => {
     }
   });
 
-  // The counts the issue note reports (constants with a value: 49 pKa, and the ΔrH° and ΔrCp° present).
+  // The counts the issue note reports (constants with a value: 49 pKa, and the ΔrH° and ΔrCp° present), plus the
+  // 14 formulation amino-acid steps (13 pKa and their ΔrH° recalled; arginine's guanidinium pKa checked, Fitch 2015).
   test('checked against recalled, after this review', () => {
     const count = (pick: (l: ProvenanceLevel) => boolean) => ACID_SYSTEMS.flatMap((s) => s.steps.flatMap(stepProvenances)).filter((p) => pick(p.level)).length;
     const pKas = ACID_SYSTEMS.flatMap((s) => s.steps.map((st) => st.provenance.pKa.level));
-    expect(pKas).toHaveLength(49);
-    expect(pKas.filter((l) => l === 'checked')).toHaveLength(18);
-    expect(pKas.filter((l) => l === 'recalled')).toHaveLength(30);
+    expect(pKas).toHaveLength(49 + 14);
+    expect(pKas.filter((l) => l === 'checked')).toHaveLength(18 + 1);
+    expect(pKas.filter((l) => l === 'recalled')).toHaveLength(30 + 13);
     expect(pKas.filter((l) => l === 'common practice')).toHaveLength(1);
-    expect(count((l) => l === 'checked')).toBe(18 + 17 + 16);
+    expect(count((l) => l === 'checked')).toBe(18 + 17 + 16 + 1);
     expect(count((l) => l === 'recalled')).toBeGreaterThan(60);
   });
 });

@@ -113,4 +113,15 @@ export interface Reagent {
   liquid?: LiquidForm;
   /** a handbook molar mass, g/mol, that the tests check the formula against */
   handbookMolarMass?: { gPerMol: number; source: string; level: ProvenanceLevel };
+  /**
+   * an excipient with no acid–base effect (sugar, polyol, surfactant): it releases nothing, and the source says
+   * why it is taken as inert; a mixture of molecules (polysorbates) has only a nominal molar mass, so amounts in mol are refused
+   */
+  excipient?: { source: string; nominalMolarMass?: boolean };
+  /** the solvent itself (water, WFI): a row adds volume only */
+  solvent?: boolean;
+  /** equivalents per mole, for normality (N) of strong acids and bases only */
+  normalityEqPerMol?: number;
+  /** the most concentrated aqueous solution that exists at about 20–25 °C, mol/L: a stock above it is refused */
+  solubilityLimit?: { maxM: number; source: string };
 }

@@ -13,7 +13,7 @@ export const MODEL_LIMIT_MOLAL: Record<ActivityModel, number> = {
 export function parseModel(value: unknown, argument = 'model'): ActivityModel {
   if (value === null || value === undefined || value === '') return 'davies';
   const text = typeof value === 'string' ? value.trim().toLowerCase().replace(/[\s_–—]+/g, '-') : '';
-  const model = text === 'bates–guggenheim' || text === 'batesguggenheim' ? 'bates-guggenheim' : text;
+  const model = text === 'bates–guggenheim' || text === 'batesguggenheim' || text === 'bg' ? 'bates-guggenheim' : text;
   if (!(ACTIVITY_MODELS as readonly string[]).includes(model)) {
     fail({ code: 'bad_model', argument, received: quote(value), expected: 'davies, bates-guggenheim or ideal' });
   }

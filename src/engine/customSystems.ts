@@ -1,8 +1,10 @@
 import type { AcidSystem, Provenance, Reagent, StrongIon } from '../catalogue';
-import { ACID_SYSTEMS, strongIonById } from '../catalogue';
+import { strongIonById } from '../catalogue';
 import { ProticError, describeFailure, fail, quote } from './failure';
-import { parseFormula } from './formula';
-import { normaliseName, setCustomDefinitions } from './registry';
+import { parseFormula, splitHydrate } from './formula';
+import { catalogueLookalikeKeys, lookalikeKey, normaliseName } from './nameIndex';
+import { clearCustomStore, setCustomDefinitions } from './customStore';
+import { plainText, screenText } from './textScreen';
 
 // Typed by the user: provenance level `user` for every constant a custom system defines.
 const USER: Provenance = { level: 'user', source: 'user-defined in this workbook' };
@@ -21,10 +23,24 @@ const SAFE_NAME = /^[\p{L}\p{N} ()+,.'\-]{1,60}$/u;
 const COUNTER_IONS: Record<string, string> = { Na: 'Na+', K: 'K+', Li: 'Li+', Cl: 'Cl-', Br: 'Br-' };
 
 function checkName(value: unknown, argument: string): string {
+  if (typeof value === 'string') screenText(value, argument); // a look-alike or invisible character is named and located
   if (typeof value !== 'string' || !SAFE_NAME.test(value.trim())) {
     fail({ code: 'bad_argument', argument, received: quote(value), expected: 'a name of 1 to 60 letters, digits, spaces or ( ) + , . \' -' });
   }
-  return value.trim();
+  return plainText(value).trim();
+}
+
+/**
+ * A custom name must not be, or look like, a catalogue name: compared after NFKC, look-alike folding, case,
+ * spaces and punctuation, so "Тris base" (Cyrillic Т) or "TRIS-base" is taken.
+ */
+function claimName(name: string, argument: string, taken: Map<string, string>): void {
+  const key = lookalikeKey(name);
+  const owner = taken.get(key);
+  if (owner !== undefined) {
+    fail({ code: 'bad_argument', argument, received: quote(name), expected: `a name not already used: it reads as ${quote(owner)}, a catalogue or custom name` });
+  }
+  taken.set(key, name);
 }
 
 function checkNumberList(value: unknown, argument: string, length: number | undefined, lo: number, hi: number, unit: string): number[] {
@@ -39,12 +55,11 @@ function checkNumberList(value: unknown, argument: string, length: number | unde
   });
 }
 
-function buildSystem(def: Record<string, unknown>, index: number, taken: Set<string>): { system: AcidSystem; reagents: Reagent[] } {
+function buildSystem(def: Record<string, unknown>, index: number, taken: Map<string, string>): { system: AcidSystem; reagents: Reagent[] } {
   const where = `custom system ${index + 1}`;
   const name = checkName(def.name, `${where} name`);
   const key = normaliseName(name);
-  if (taken.has(key)) fail({ code: 'bad_argument', argument: `${where} name`, received: quote(name), expected: 'a name not already used by the catalogue or another custom system' });
-  taken.add(key);
+  claimName(name, `${where} name`, taken);
   const pKa = checkNumberList(def.pKa, `${where} pKa`, undefined, -2, 16, '');
   for (let i = 1; i < pKa.length; i++) {
     if (!(pKa[i] > pKa[i - 1])) fail({ code: 'bad_argument', argument: `${where} pKa`, received: pKa.join(', '), expected: 'pKa values in increasing order, first proton lost first' });
@@ -62,10 +77,11 @@ function buildSystem(def: Record<string, unknown>, index: number, taken: Set<str
   const reagents: Reagent[] = (formsIn as Record<string, unknown>[]).map((form, j) => {
     const formWhere = `${where} form ${j + 1}`;
     const formName = checkName(form?.name, `${formWhere} name`);
-    if (taken.has(normaliseName(formName))) fail({ code: 'bad_argument', argument: `${formWhere} name`, received: quote(formName), expected: 'a name not already used' });
-    taken.add(normaliseName(formName));
+    claimName(formName, `${formWhere} name`, taken);
     if (typeof form.formula !== 'string' || form.formula.length > 100) fail({ code: 'bad_formula', argument: `${formWhere} formula`, received: quote(form.formula), expected: 'a formula such as C6H12NNaO4S', position: 1 });
-    const parsed = parseFormula(form.formula, `${formWhere} formula`);
+    screenText(form.formula, `${formWhere} formula`);
+    const formulaText = plainText(form.formula).trim();
+    const parsed = parseFormula(formulaText, `${formWhere} formula`);
     const lost = form.protonsLost;
     if (typeof lost !== 'number' || !Number.isInteger(lost) || lost < 0 || lost > pKa.length) {
       fail({ code: 'bad_argument', argument: `${formWhere} protonsLost`, received: quote(lost), expected: `a whole number from 0 to ${pKa.length}` });
@@ -75,7 +91,9 @@ function buildSystem(def: Record<string, unknown>, index: number, taken: Set<str
     if (balance !== 0) {
       fail({ code: 'bad_argument', argument: `${formWhere} formula`, received: `${form.formula}, net charge ${balance}`, expected: 'a neutral salt: counter-ions (Na, K, Li, Cl, Br) that balance the form\'s charge' });
     }
-    return { id: `${id}:${j}`, name: formName, aliases: [], formula: form.formula.split(/[·•.*]\s*\d*H2O$/)[0], hydrateWater: parsed.hydrateWater, systems: [{ systemId: id, count: 1 }], ions };
+    // the one hydrate grammar splits off the water, so it is counted once, whichever dot or count was written
+    const anhydrousText = splitHydrate(formulaText)?.base ?? formulaText;
+    return { id: `${id}:${j}`, name: formName, aliases: [], formula: anhydrousText, hydrateWater: parsed.hydrateWater, systems: [{ systemId: id, count: 1 }], ions };
   });
   const system: AcidSystem = {
     id, name, aliases: [], custom: true,
@@ -99,7 +117,7 @@ export function applyCustomDefinitions(json: unknown): string[] {
   const reagents: Reagent[] = [];
   const list = (json as { systems?: unknown } | null)?.systems;
   if (!Array.isArray(list) || list.length > 100) return ['custom systems: expected an object with a "systems" list of at most 100 entries'];
-  const taken = new Set(ACID_SYSTEMS.map((s) => normaliseName(s.name)));
+  const taken = catalogueLookalikeKeys();
   list.forEach((def, i) => {
     try {
       if (typeof def !== 'object' || def === null) fail({ code: 'bad_argument', argument: `custom system ${i + 1}`, received: quote(def), expected: 'an object with name, pKa and charge' });
@@ -116,5 +134,5 @@ export function applyCustomDefinitions(json: unknown): string[] {
 }
 
 export function clearCustomDefinitions(): void {
-  setCustomDefinitions([], []);
+  clearCustomStore();
 }

@@ -26,6 +26,7 @@ export type Failure =
   | (FailureFields & { code: 'ambiguous_reagent' })
   | (FailureFields & { code: 'unknown_system' })
   | (FailureFields & { code: 'bad_formula'; position: number })
+  | (FailureFields & { code: 'bad_character'; position: number })
   | (FailureFields & { code: 'bad_unit' })
   | (FailureFields & { code: 'bad_model' })
   | (FailureFields & { code: 'bad_amount' })
@@ -46,6 +47,7 @@ const HEADLINES: Record<FailureCode, string> = {
   ambiguous_reagent: 'the name does not say which form',
   unknown_system: 'unknown acid system',
   bad_formula: 'not a chemical formula',
+  bad_character: 'a character that is not plain text',
   bad_unit: 'unit not allowed here',
   bad_model: 'unknown activity model',
   bad_amount: 'amount not usable',
@@ -69,7 +71,7 @@ function rangeText(r: ReachableRange): string {
 export function describeFailure(failure: Failure): string {
   const where = failure.row === undefined ? failure.argument : `${failure.argument}, row ${failure.row}`;
   const detail =
-    failure.code === 'bad_formula' ? ` at character ${failure.position}` :
+    failure.code === 'bad_formula' || failure.code === 'bad_character' ? ` at character ${failure.position}` :
     failure.code === 'unreachable_target' ? `: ${failure.reason}${failure.reachable ? `; reachable ${rangeText(failure.reachable)}` : ''}` : '';
   return `${where}: ${HEADLINES[failure.code]}${detail}. Received ${failure.received}; expected ${failure.expected}.`;
 }

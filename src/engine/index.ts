@@ -5,18 +5,20 @@ export { chargeBalance } from './chargeBalance';
 export type { BalanceOut } from './chargeBalance';
 export { FAILURE_CODES, NOT_AVAILABLE_CODES, ProticError, describeFailure, fail, quote } from './failure';
 export type { Failure, FailureCode, ReachableRange } from './failure';
-export { compositionKey, compositionMassGPerMol, looksLikeFormula, molarMassGPerMol, parseFormula, withoutHydrogens } from './formula';
-export type { Composition, ParsedFormula } from './formula';
-export { addReagent, buildContents, cloneContents, contentsFromParsed, molesPerLitreDispensed, parseReagentSpec } from './mixture';
-export type { Contents, MixtureRow, ParsedRow, ReagentSpec, RowAudit } from './mixture';
+export { MAX_FORMULA_DEPTH, compositionKey, compositionMassGPerMol, hydrateText, looksLikeFormula, molarMassGPerMol, parseFormula, splitHydrate, withoutHydrogens } from './formula';
+export type { Composition, HydrateSplit, ParsedFormula } from './formula';
+export { MAX_MASS_STOCK_G_PER_L, addReagent, buildContents, cloneContents, contentsFromParsed, molesPerLitreDispensed, parseReagentSpec, registerSpecReader } from './mixture';
+export type { Contents, MixtureRow, ParsedRow, ReagentSpec, RowAudit, SpecReader } from './mixture';
 export { MAX_COMPONENT_M, checkSystemRange, lnKaAt, prepareProblem, prepareSystem, setActivity } from './problem';
 export type { PreparedSystem, Problem } from './problem';
 export { recipeForTarget, recipeLine } from './recipe';
 export type { RecipeLine } from './recipe';
 export {
-  allReagents, allSystems, closestReagentNames, molarMassOfReagent, normaliseName, reagentByName, registryGeneration,
+  allReagents, allSystems, closestReagentNames, compactName, molarMassOfReagent, normaliseName, reagentByName, registryGeneration,
   resolveReagent, resolveSystem, setCustomDefinitions, systemFor,
 } from './registry';
+export { MAX_REAGENT_TEXT, firstCharacterProblem, foldConfusables, plainText, screenText } from './textScreen';
+export type { CharacterProblem } from './textScreen';
 export type { ResolvedReagent } from './registry';
 export { bufferCapacity, ionLabel, modelWarning, speciesRows } from './results';
 export type { SpeciesRow } from './results';
@@ -31,7 +33,7 @@ export type { InverseOutcome, InverseProblem } from './inverse';
 export { iterateActivity } from './targetActivity';
 export { IONIC_STRENGTH_RELATIVE_TOLERANCE, saltForIonicStrength } from './saltDose';
 export type { SaltDoseResult } from './saltDose';
-export { UNIT_LIST, findUnit, parseUnit, splitMassStock, splitStock } from './units';
+export { UNIT_LIST, findUnit, parseUnit, splitMassStock, splitStock, unitCaseHint } from './units';
 export type { Unit, UnitKind } from './units';
 export { WATER_RANGE_C, WATER_SOURCES, checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL, waterPermittivity } from './water';
 export { applyCustomDefinitions, clearCustomDefinitions } from './customSystems';

@@ -1,7 +1,9 @@
 import type { Reagent } from '../catalogue';
 import { ProticError, fail, quote } from './failure';
-import { registryGeneration, resolveReagent } from './registry';
+import { MAX_COMPONENT_M } from './problem';
+import { allReagents, readsAs, registryGeneration, resolveReagent } from './registry';
 import type { ResolvedReagent } from './registry';
+import { checkLength, plainText, screenText } from './textScreen';
 import { parseUnit, splitMassStock, splitStock } from './units';
 import type { Unit } from './units';
 import { adjustedStockComposition, parseAdjustedStock } from './adjustedStock';
@@ -50,10 +52,20 @@ const specCache = new Map<string, ReagentSpec>();
 let specCacheGeneration = -1;
 
 /**
- * Parses a reagent cell: a stock (`0.5 M NaOH`), a made solution (a STOCK handle, or a pH-adjusted
- * stock such as `1 M Tris-HCl pH 8.0`, whose composition the text alone fixes), or a
- * catalogue name or formula.
+ * Readers tried first, on the screened text, before stocks and names: the one place where a text of another kind
+ * (a STOCK handle, a stock with a pH such as `1 M Tris-HCl pH 8.0`) is recognised. Each returns its spec, or
+ * undefined when the text is not its kind.
  */
+export type SpecReader = (text: string, argument: string, row?: number) => ReagentSpec | undefined;
+const SPEC_READERS: SpecReader[] = [(text, argument, row) => readAdjustedStock(text, argument, row)];
+
+/** Adds a reader to the hook above (e.g. STOCK handles); cached parses are dropped so they see it. */
+export function registerSpecReader(reader: SpecReader): void {
+  SPEC_READERS.push(reader);
+  specCache.clear();
+}
+
+/** Parses a reagent cell: a stock (`0.5 M NaOH`, `NaOH 1 M`, `1 N HCl`, `10% (w/v) NaOH`) or a catalogue name or formula. */
 export function parseReagentSpec(text: string, argument: string, row?: number): ReagentSpec {
   if (specCacheGeneration !== registryGeneration()) {
     specCache.clear();
@@ -67,29 +79,54 @@ export function parseReagentSpec(text: string, argument: string, row?: number): 
   return spec;
 }
 
+/** A w/v stock holds at most 100 g per 100 mL: beyond that the solute outweighs a litre of water-like solution (stated limit). */
+export const MAX_MASS_STOCK_G_PER_L = 1000;
+
 function madeSpec(made: StockComposition, text: string): ReagentSpec {
   return { resolved: { reagent: handleReagent(made, text), molarMassGPerMol: 0, hydrateWater: 0, matchedBy: 'name' }, stockM: 1, made };
 }
 
-function parseReagentSpecUncached(text: string, argument: string, row: number | undefined): ReagentSpec {
-  // made solutions first: a handle's readable part, or a bottle label, must never be read as a plain reagent
-  if (looksLikeHandle(text)) return madeSpec(decodeHandle(text, argument, row), text);
+/** A stock with a pH, as on a bottle label: the first of the readers. */
+const readAdjustedStock: SpecReader = (text, argument, row) => {
   const adjusted = parseAdjustedStock(text);
-  if (adjusted) return madeSpec(adjustedStockComposition(adjusted, text, argument, row), text);
+  return adjusted ? madeSpec(adjustedStockComposition(adjusted, text, argument, row), text) : undefined;
+};
+
+function parseReagentSpecUncached(raw: string, argument: string, row?: number): ReagentSpec {
+  // a STOCK handle is read exactly as written, before any folding: its check digits cover every character
+  if (looksLikeHandle(raw)) return madeSpec(decodeHandle(raw, argument, row), raw);
+  screenText(raw, argument, row, (folded) => {
+    const stock = splitStock(folded) ?? splitMassStock(folded);
+    return readsAs(stock ? stock.rest : folded);
+  });
+  const text = plainText(raw).trim();
+  for (const read of SPEC_READERS) {
+    const spec = read(text, argument, row);
+    if (spec) return spec;
+  }
+  checkLength(text, argument, row);
   const massStock = splitMassStock(text);
   if (massStock) {
-    if (!(massStock.gramsPerL > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
+    if (!(massStock.gramsPerL > 0)) fail({ code: 'bad_amount', argument, row, received: quote(raw), expected: 'a stock concentration above zero' });
+    if (massStock.gramsPerL > MAX_MASS_STOCK_G_PER_L) {
+      fail({ code: 'bad_amount', argument, row, received: quote(raw), expected: `at most ${MAX_MASS_STOCK_G_PER_L} g/L (100% w/v): a solution cannot hold more solute than that per litre; check the number and its unit` });
+    }
     const resolved = resolveReagent(massStock.rest, argument, row);
     if (resolved.reagent.liquid) {
-      fail({ code: 'bad_argument', argument, row, received: quote(text), expected: `a solid or a formula before a mass concentration; ${resolved.reagent.name} is a liquid as sold (write its volume, or a stock in M)` });
+      fail({ code: 'bad_argument', argument, row, received: quote(raw), expected: `a solid or a formula before a mass concentration; ${resolved.reagent.name} is a liquid as sold (write its volume, or a stock in M)` });
     }
     // the hydrate as written (or named) sets the molar mass: 50 g/L of Na2HPO4·7H2O is 0.187 mol/L
-    return { resolved, stockM: massStock.gramsPerL / resolved.molarMassGPerMol };
+    return checkedStock({ resolved, stockM: massStock.gramsPerL / resolved.molarMassGPerMol }, raw, argument, row);
   }
   const stock = splitStock(text);
   if (stock) {
-    if (!(stock.concentrationM > 0)) fail({ code: 'bad_amount', argument, row, received: quote(text), expected: 'a stock concentration above zero' });
-    return { resolved: resolveReagent(stock.rest, argument, row), stockM: stock.concentrationM };
+    const resolved = resolveReagent(stock.rest, argument, row);
+    const concentrationM = stock.normality === undefined ? stock.concentrationM : stock.normality / equivalentsPerMol(resolved.reagent, raw, argument, row);
+    if (!(concentrationM > 0)) fail({ code: 'bad_amount', argument, row, received: quote(raw), expected: 'a stock concentration above zero' });
+    if (resolved.reagent.liquid) {
+      fail({ code: 'bad_argument', argument, row, received: quote(raw), expected: `a compound before a molarity; ${resolved.reagent.name} is a liquid as sold (write its volume, or ${resolved.reagent.formula} for the compound)` });
+    }
+    return checkedStock({ resolved, stockM: concentrationM }, raw, argument, row);
   }
   try {
     return { resolved: resolveReagent(text, argument, row) };
@@ -102,6 +139,37 @@ function parseReagentSpecUncached(text: string, argument: string, row: number | 
   }
 }
 
+/** Equivalents per mole for normality: strong acids and bases only, since elsewhere N depends on the reaction. */
+function equivalentsPerMol(reagent: Reagent, text: string, argument: string, row?: number): number {
+  if (reagent.normalityEqPerMol === undefined) {
+    fail({ code: 'bad_unit', argument, row, received: quote(text),
+      expected: `a molarity (M) for ${reagent.name}: normality (N) is taken only for strong acids and bases (HCl, HNO3, NaOH, KOH 1 eq/mol; H2SO4 2 eq/mol), since elsewhere it depends on the reaction` });
+  }
+  return reagent.normalityEqPerMol;
+}
+
+/**
+ * A stock that cannot exist is refused: more of one component than any aqueous solution holds (MAX_COMPONENT_M),
+ * more than the compound's solubility, or more concentrated than the pure liquid compound.
+ */
+function checkedStock(spec: ReagentSpec, text: string, argument: string, row?: number): ReagentSpec {
+  const { reagent } = spec.resolved;
+  const stockM = spec.stockM as number;
+  const refuse = (why: string): never => fail({ code: 'bad_amount', argument, row, received: quote(text), expected: `a stock that can exist: ${why}; check the number and its unit` });
+  if (reagent.solvent) fail({ code: 'bad_argument', argument, row, received: quote(text), expected: 'water as a row of its own, by volume: it is the solvent, not a stock' });
+  for (const s of reagent.systems) if (stockM * s.count > MAX_COMPONENT_M) refuse(`at most ${MAX_COMPONENT_M} mol/L of any one component, and this is ${Number((stockM * s.count).toPrecision(4))} mol/L of ${s.systemId}`);
+  for (const ion of reagent.ions) if (stockM * ion.count > MAX_COMPONENT_M) refuse(`at most ${MAX_COMPONENT_M} mol/L of any one component, and this is ${Number((stockM * ion.count).toPrecision(4))} mol/L of ${ion.ionId}`);
+  if (reagent.solubilityLimit && stockM > reagent.solubilityLimit.maxM) {
+    refuse(`${reagent.name} dissolves to at most about ${reagent.solubilityLimit.maxM} mol/L (${reagent.solubilityLimit.source})`);
+  }
+  const pure = allReagents().find((r) => r.liquid && r.liquid.massFraction === 1 && r.formula === reagent.formula);
+  if (pure?.liquid) {
+    const pureM = (pure.liquid.densityGPerML * 1000) / spec.resolved.molarMassGPerMol;
+    if (stockM > pureM * (1 + 1e-9)) refuse(`the pure compound (${pure.name}) is ${Number(pureM.toPrecision(4))} mol/L`);
+  }
+  return spec;
+}
+
 /** Moles per litre of what is dispensed by volume (stock or catalogue liquid), or undefined for a solid. */
 export function molesPerLitreDispensed(spec: ReagentSpec): number | undefined {
   if (spec.stockM !== undefined) return spec.stockM;
@@ -112,26 +180,47 @@ export function molesPerLitreDispensed(spec: ReagentSpec): number | undefined {
 
 function rowMoles(spec: ReagentSpec, amount: number, unit: Unit, volumeL: number | undefined, row: MixtureRow): { moles: number; volumeL: number } {
   const value = amount * unit.toBase;
+  const reagent = spec.resolved.reagent;
+  const refuseUnit = (expected: string): never => fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit), expected });
+  if (reagent.solvent) {
+    // the solvent adds its volume and nothing else; the volume rules are those of any dispensed liquid
+    if (unit.kind !== 'volume') refuseUnit(`a volume (L mL µL) for ${reagent.name}, the solvent`);
+    return { moles: 0, volumeL: value };
+  }
+  if (reagent.excipient?.nominalMolarMass && (unit.kind === 'amount' || unit.kind === 'concentration')) {
+    refuseUnit(`a mass (g mg) or a mass concentration (g/L, % w/v) for ${reagent.name}: a mixture of molecules has only a nominal molar mass`);
+  }
   switch (unit.kind) {
     case 'mass':
-      if (spec.stockM !== undefined) fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit), expected: 'a volume (L mL µL) or an amount (mol mmol µmol) for a stock solution' });
+      if (spec.stockM !== undefined) refuseUnit('a volume (L mL µL) or an amount (mol mmol µmol) for a stock solution');
       {
         // a liquid as sold is weighed whole: only its assay fraction is the compound, and it brings its own volume
-        const liquid = spec.resolved.reagent.liquid;
+        const liquid = reagent.liquid;
         if (liquid) return { moles: (value * liquid.massFraction) / spec.resolved.molarMassGPerMol, volumeL: value / (liquid.densityGPerML * 1000) };
         return { moles: value / spec.resolved.molarMassGPerMol, volumeL: 0 };
       }
     case 'amount':
     case 'concentration':
-      if (spec.made) fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit), expected: `a volume (L mL µL) of ${spec.made.name}, a made solution` });
+      if (spec.made) refuseUnit(`a volume (L mL µL) of ${spec.made.name}, a made solution`);
       return unit.kind === 'amount' ? { moles: value, volumeL: 0 } : { moles: value * (volumeL ?? 1), volumeL: 0 };
+    case 'massConcentration':
+      if (spec.stockM !== undefined) refuseUnit('a volume (L mL µL) or an amount (mol mmol µmol) for a stock solution');
+      if (reagent.liquid && reagent.liquid.massFraction < 1) {
+        refuseUnit(`a volume or a mass for ${reagent.name}, a liquid as sold: a mass concentration would not say whether it counts the liquid or the compound`);
+      }
+      return { moles: (value * (volumeL ?? 1)) / spec.resolved.molarMassGPerMol, volumeL: 0 };
+    case 'normality':
+      if (spec.stockM !== undefined) refuseUnit('a volume (L mL µL) or an amount (mol mmol µmol) for a stock solution');
+      return { moles: (value / equivalentsPerMol(reagent, row.reagent, 'reagents', row.row)) * (volumeL ?? 1), volumeL: 0 };
     case 'volume': {
       const perL = molesPerLitreDispensed(spec);
       if (perL === undefined) {
-        fail({ code: 'bad_unit', argument: 'units', row: row.row, received: quote(row.unit),
-          expected: `a mass or amount for ${spec.resolved.reagent.name}, a solid; a volume needs a stock (1 M ...) or a liquid with a catalogue density` });
+        const sold = allReagents().filter((r) => r.liquid && r.formula === reagent.formula).map((r) => r.name);
+        refuseUnit(sold.length > 0
+          ? `a mass or amount for ${reagent.name}, the pure compound; by volume write the liquid as sold (${sold.join(', ')}) or a stock such as 1 M ${reagent.formula}`
+          : `a mass or amount for ${reagent.name}, a solid; a volume needs a stock (1 M ...) or a liquid with a catalogue density`);
       }
-      return { moles: value * perL, volumeL: value };
+      return { moles: value * (perL as number), volumeL: value };
     }
   }
 }
@@ -142,8 +231,8 @@ export function addReagent(contents: Contents, reagent: Reagent, moles: number):
 }
 
 /**
- * Turns batch-record rows into moles in a final volume. The volume is needed when any row is a
- * mass, an amount or a volume; with only concentrations none is; with only stock volumes (and
+ * Turns batch-record rows into moles in a final volume. An empty mixture is refused (pure water is a
+ * `water` row). The volume is needed when any row is a mass, an amount or a volume; with only concentrations none is; with only stock volumes (and
  * concentrations) the volumes are added (additive-volume assumption).
  */
 export function buildContents(rows: MixtureRow[], volumeL: number | undefined): Contents {
@@ -159,6 +248,9 @@ export interface ParsedRow {
 
 /** `buildContents` for rows already parsed, in row order: the same checks, the same failures. */
 export function contentsFromParsed(parsed: ParsedRow[], volumeL: number | undefined): Contents {
+  if (parsed.length === 0) {
+    fail({ code: 'bad_argument', argument: 'reagents', received: 'no reagent rows', expected: 'at least one row; for pure water write a row water (or WFI) with its volume' });
+  }
   let finalVolumeL = volumeL;
   if (finalVolumeL === undefined) {
     const needsVolume = parsed.find((p) => p.unit.kind === 'mass' || p.unit.kind === 'amount');
@@ -175,6 +267,11 @@ export function contentsFromParsed(parsed: ParsedRow[], volumeL: number | undefi
   const contents: Contents = { systemMoles: new Map(), ionMoles: new Map(), volumeL: finalVolumeL ?? 1, rows: [] };
   for (const p of parsed) {
     const { moles, volumeL: rowVolumeL } = rowMoles(p.spec, p.row.amount, p.unit, finalVolumeL, p.row);
+    // an excipient changes no equilibrium, so the component cap never sees it: its mass per litre is bounded here
+    if (p.spec.resolved.reagent.excipient && (moles * p.spec.resolved.molarMassGPerMol) / contents.volumeL > MAX_MASS_STOCK_G_PER_L) {
+      fail({ code: 'out_of_range', argument: 'amounts', row: p.row.row, received: `${p.spec.resolved.reagent.name} at ${Number(((moles * p.spec.resolved.molarMassGPerMol) / contents.volumeL).toPrecision(4))} g/L`,
+        expected: `at most ${MAX_MASS_STOCK_G_PER_L} g per litre of the final solution; check the amount, its unit and the volume` });
+    }
     addReagent(contents, p.spec.resolved.reagent, moles);
     contents.rows.push({ row: p.row.row, text: p.row.reagent, reagent: p.spec.resolved.reagent, moles, volumeL: rowVolumeL });
     const note = p.spec.made?.warning;

@@ -187,6 +187,10 @@ export function titrantForTarget(targetPH: number, contents: Contents, spec: Rea
 
 /** Units a titrant amount may be given in, and how moles convert to each. */
 export function titrantUnit(value: unknown, spec: ReagentSpec, argument: string): Unit {
+  const reagent = spec.resolved.reagent;
+  if (reagent.systems.length === 0 && reagent.ions.length === 0) {
+    fail({ code: 'bad_argument', argument: 'titrant', received: quote(reagent.name), expected: `an acid, a base or a buffer component: ${reagent.name} (${reagent.solvent ? 'the solvent' : 'an excipient'}) moves no pH` });
+  }
   const dispensed = molesPerLitreDispensed(spec) !== undefined;
   if (value === null || value === undefined || value === '') return findUnit(dispensed ? 'mL' : 'g') as Unit;
   const unit = typeof value === 'string' ? findUnit(value) : undefined;
@@ -210,7 +214,7 @@ export function molesToUnit(moles: number, spec: ReagentSpec, unit: Unit): numbe
       const grams = moles * spec.resolved.molarMassGPerMol / (liquid && spec.stockM === undefined ? liquid.massFraction : 1);
       return grams / unit.toBase;
     }
-    case 'concentration': throw new Error('a titrant amount is never a concentration');
+    default: throw new Error('a titrant amount is never a concentration');
   }
 }
 

@@ -30,7 +30,7 @@ function run<T>(compute: () => T): T {
  * @helpurl https://localhost:3000/help.html#phmix
  * @param reagents Reagent names, formulas (Na2HPO4·7H2O) or stocks (1 M HCl), one per row.
  * @param amounts Amount of each reagent, same shape as reagents.
- * @param units Unit of each amount (g mg kg µg mol mmol µmol M mM µM L mL µL): one cell or one per row.
+ * @param units Unit of each amount (g mg kg µg, mol mmol µmol nmol, M mM µM nM, g/L mg/mL % w/v, N, L mL µL; water by volume): one cell or one per row.
  * @param [volume] Final volume of the solution, L. Needed when a row is a mass, amount or volume.
  * @param [temperature] Temperature, °C (default 25).
  * @param [model] Activity model: davies (default), bates-guggenheim or ideal.

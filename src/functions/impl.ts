@@ -2,7 +2,7 @@ import { ADDIN_VERSION, CATALOGUE_VERSION, levelLabel } from '../catalogue';
 import {
   apparentPKas, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
   WATER_RANGE_C, WATER_SOURCES, debyeHuckelA, pHWithStepPKa, fractionsAt, looksLikeFormula, modelWarning, pKw, waterDensityKgPerL, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
-  pKaAt, quote, reagentByName, recipeForTarget, resolveReagent, resolveSystem, speciesRows,
+  MAX_REAGENT_TEXT, ProticError, pKaAt, quote, reagentByName, recipeForTarget, resolveReagent, resolveSystem, speciesRows,
   titrantForTarget, titrantUnit, unitToMoles, withTitrant,
 } from '../engine';
 import {
@@ -200,8 +200,20 @@ export function molarMass(formula: Cell): number {
     fail({ code: 'bad_argument', argument: 'formula', received: quote(text), expected: `a solid or a formula: a liquid as sold has no single molar mass (its compound is ${byName.formula})` });
   }
   if (byName) return molarMassOfReagent(byName);
-  if (!looksLikeFormula(text)) resolveReagent(text, 'formula'); // an ambiguous or unknown name: the message says which, with choices
-  return finite(molarMassGPerMol(text, 'formula'), 'molar mass');
+  if (looksLikeFormula(text)) {
+    try {
+      return finite(molarMassGPerMol(text, 'formula'), 'molar mass');
+    } catch (error) {
+      // not a formula as written: a trade spelling (Tris·HCl, NACL) may still name a reagent; a text too long for a name keeps the formula's message
+      if (!(error instanceof ProticError) || error.failure.code !== 'bad_formula' || text.length > MAX_REAGENT_TEXT) throw error;
+    }
+  }
+  // a trade spelling, or an ambiguous or unknown name: the message says which, with choices
+  const resolved = resolveReagent(text, 'formula');
+  if (resolved.reagent.liquid) {
+    fail({ code: 'bad_argument', argument: 'formula', received: quote(text), expected: `a solid or a formula: a liquid as sold has no single molar mass (its compound is ${resolved.reagent.formula})` });
+  }
+  return finite(resolved.molarMassGPerMol, 'molar mass');
 }
 
 export function version(): string {
