@@ -135,6 +135,20 @@ describe('verify', () => {
     expect(r.stamps).toEqual([expect.objectContaining({ where: 'Review sheet!B14', changed: false })]);
   });
 
+  test('a one-cell result saved as Excel saves it (a 1×1 dynamic array), and a call saved before the add-in loaded', async () => {
+    const cells: RawCell[] = [
+      { ref: 'A1', f: '_xldudf_PROTIC_PKA("phosphate",2)', fAttrs: { t: 'array', ref: 'A1' }, cm: 1, value: pka('phosphate', 2) },
+      { ref: 'B1', f: '_xldudf_PROTIC_VERSION()', fAttrs: { t: 'array', ref: 'B1' }, cm: 1, value: version() },
+    ];
+    const ok = await verifyFile(await file('one-cell.xlsx', { sheets: [{ name: 'S', cells }], dynamicMetadata: true }));
+    expect(ok.exitCode).toBe(0);
+    expect(ok.cells.map((c) => [c.where, c.status])).toEqual([['S!A1', 'agrees'], ['S!B1', 'stamp']]);
+    // typed while Protic was not loaded: Excel keeps the name as typed and saves #NAME?
+    const stuck = await verifyFile(await file('stuck.xlsx', { sheets: [{ name: 'S', cells: [{ ref: 'A1', f: 'PROTIC.PKA("phosphate",2)', fAttrs: { t: 'array', aca: '1', ref: 'A1', ca: '1' }, cm: 1, value: { error: '#NAME?' } }] }], dynamicMetadata: true }));
+    expect(stuck.exitCode).toBe(1);
+    expect(stuck.cells[0].note).toMatch(/Excel did not have Protic loaded/);
+  });
+
   test('the evaluated grid: cross-sheet references, defined names, ANCHORARRAY, SINGLE and IFS', async () => {
     const path = await file('forms-sheet.xlsx', book());
     const r = await cli(sheetMain, [path, '--sheet', 'Review sheet']);
@@ -335,7 +349,7 @@ describe('the README worked example', () => {
     const [wash] = (await writeExampleWorkbooks('examples', join(dir, 'readme'))).filter((p) => p.endsWith('wash-buffer.xlsx'));
     const zip = await JSZip.loadAsync(readFileSync(wash));
     const xml = await zip.file('xl/worksheets/sheet1.xml')!.async('string');
-    zip.file('xl/worksheets/sheet1.xml', xml.replace(/(<c r="B10"[^>]*><f>[^<]*<\/f><v>)([^<]*)(<\/v>)/, (_m, a: string, v: string, b: string) => `${a}${Number(v) + 0.01}${b}`));
+    zip.file('xl/worksheets/sheet1.xml', xml.replace(/(<c r="B10"[^>]*><f[^>]*>[^<]*<\/f><v>)([^<]*)(<\/v>)/, (_m, a: string, v: string, b: string) => `${a}${Number(v) + 0.01}${b}`));
     const signed = join(dir, 'readme', 'wash-buffer-signed.xlsx');
     writeFileSync(signed, await zip.generateAsync({ type: 'nodebuffer' }));
     const r = await cli(verifyMain, [signed]);
