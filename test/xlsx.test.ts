@@ -253,6 +253,11 @@ describe('verify', () => {
     expect(v.code).toBe(0);
   });
 
+  test('a workbook without Protic formulas says nothing was verified', async () => {
+    const r = await cli(verifyMain, [await file('plain.xlsx', { sheets: [{ name: 'S', cells: [{ ref: 'A1', value: 1 }, { ref: 'A2', f: 'A1*2', value: 2 }] }] })]);
+    expect(r.out).toMatch(/result: the workbook holds no Protic formula: nothing was verified \(exit 0\)/);
+  });
+
   test('progress on stderr for a long workbook', async () => {
     const cells: RawCell[] = [];
     for (let i = 0; i < 2000; i++) cells.push({ ref: `A${i + 1}`, f: '_xldudf_PROTIC_MOLARMASS("NaCl")', value: molarMass('NaCl') });
