@@ -152,6 +152,7 @@ export function verifyBook(file: string, book: SavedWorkbook, options: VerifyOpt
   const stamps: StampReport[] = [];
   const spills: VerifyResult['spills'] = [];
   const unreadable = new Set(problems.map((p) => p.where));
+  const savedBySheet = new Map<number, Map<string, SavedValue>>();
   for (const { s, cell } of protic) {
     const sheet = book.sheets[s];
     const anchor = `${sheet.name}!${a1(cell.row, cell.col)}`;
@@ -179,9 +180,10 @@ export function verifyBook(file: string, book: SavedWorkbook, options: VerifyOpt
     if ((savedShape[0] !== newShape[0] || savedShape[1] !== newShape[1]) && !legacyLarger) {
       spills.push({ where: anchor, saved: `${savedShape[0]}×${savedShape[1]}`, recomputed: `${newShape[0]}×${newShape[1]}` });
     }
-    const savedAt = new Map<string, SavedValue>();
-    for (const other of sheet.cells) {
-      if (other.row >= cell.row && other.row < cell.row + savedShape[0] && other.col >= cell.col && other.col < cell.col + savedShape[1]) savedAt.set(`${other.row}:${other.col}`, other.value);
+    let savedAt = savedBySheet.get(s);
+    if (!savedAt) {
+      savedAt = new Map(sheet.cells.map((other) => [`${other.row}:${other.col}`, other.value] as [string, SavedValue]));
+      savedBySheet.set(s, savedAt);
     }
     for (let r = 0; r < Math.max(savedShape[0], newShape[0]); r++) {
       const label = values[cell.row + r]?.[cell.col];
