@@ -339,6 +339,24 @@ describe('sheet --out', () => {
     expect(r.err).toMatch(/a CSV holds one sheet; name it with --sheet \(sheets: Batch, Review sheet\)/);
     expect((await cli(sheetMain, [two, '--sheet', 'Nope'])).err).toMatch(/no sheet named "Nope"/);
   });
+  test('written as Excel saves it: _xldudf_ names, one-cell and spilled dynamic arrays, the XLDAPR part', async () => {
+    const out = join(dir, 'elution.xlsx');
+    expect((await cli(sheetMain, ['examples/elution-buffer.csv', '--out', out])).code).toBe(0);
+    const zip = await JSZip.loadAsync(readFileSync(out));
+    const xml = await zip.file('xl/worksheets/sheet1.xml')!.async('string');
+    expect(xml).toMatch(/<c r="B8" cm="1"[^>]*><f t="array" ref="B8">_xldudf_PROTIC_PHMIX\(A6:A7,B6:B7,C6:C7,2\)<\/f><v>[0-9.]+<\/v><\/c>/);
+    expect(xml).toMatch(/<c r="A15" cm="1"[^>]*><f t="array" ref="A15:[A-Z]+\d+">_xldudf_PROTIC_SPECIES\(/);
+    expect(xml).not.toMatch(/PROTIC\./);
+    expect(await zip.file('xl/metadata.xml')!.async('string')).toMatch(/<metadataType name="XLDAPR"[\s\S]*fDynamic="1"[\s\S]*<rc t="1" v="0"\/>/);
+    expect(await zip.file('[Content_Types].xml')!.async('string')).toMatch(/PartName="\/xl\/metadata\.xml" ContentType="application\/vnd\.openxmlformats-officedocument\.spreadsheetml\.sheetMetadata\+xml"/);
+  });
+
+  test('several sheets print each under its name', async () => {
+    const r = await cli(sheetMain, [await file('print.xlsx', book())]);
+    expect(r.code).toBe(0);
+    expect(r.out.split('\n').filter((l) => l.startsWith('# sheet '))).toEqual(['# sheet Batch', '# sheet Review sheet']);
+  });
+
   test('a workbook written back keeps its forms and verifies', async () => {
     const out = join(dir, 'forms-out.xlsx');
     expect((await cli(sheetMain, [await file('forms-in.xlsx', book()), '--out', out])).code).toBe(0);
