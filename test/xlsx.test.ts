@@ -175,6 +175,19 @@ describe('verify', () => {
     expect((await cli(verifyMain, [path, '--tolerance', '0.001'])).code).toBe(1);
   });
 
+  test('a difference carried from an altered input says so', async () => {
+    const cells: RawCell[] = [
+      { ref: 'A1', f: '_xldudf_PROTIC_PKA("phosphate",2)', value: pka('phosphate', 2) + 0.01 },
+      { ref: 'A2', f: '_xldudf_PROTIC_FRACTIONS("phosphate",A1)', fAttrs: { t: 'array', ref: 'A2' }, value: 0 },
+      { ref: 'A3', f: '_xldudf_PROTIC_PKA("phosphate",1)', value: pka('phosphate', 1) + 0.01 },
+    ];
+    const r = await verifyFile(await file('upstream.xlsx', { sheets: [{ name: 'S', cells }] }));
+    const byWhere = new Map(r.cells.map((c) => [c.where, c]));
+    expect(byWhere.get('S!A2')!.note).toMatch(/an input differs too \(A1\): this difference may come from there/);
+    expect(byWhere.get('S!A1')!.note ?? '').not.toMatch(/input differs/);
+    expect(byWhere.get('S!A3')!.note ?? '').not.toMatch(/input differs/);
+  });
+
   test('one cell inside a spilled SPECIES altered: exactly that cell, as part of its spill', async () => {
     const altered = SPECIES.map((row) => [...row]);
     const r0 = altered.findIndex((row) => row[0] === 'H⁺');

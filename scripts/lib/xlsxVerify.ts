@@ -207,6 +207,20 @@ export function verifyBook(file: string, book: SavedWorkbook, options: VerifyOpt
       }
     }
   }
+  // a difference whose inputs differ too may only be carried from upstream: say which
+  const differing = new Set(cells.filter((c) => c.status === 'differs').map((c) => c.where));
+  if (differing.size > 0) {
+    for (const c of cells) {
+      if (c.status !== 'differs' || c.computedInputs.length === 0) continue;
+      const sheetName = c.where.slice(0, c.where.lastIndexOf('!'));
+      const upstream = c.computedInputs.filter((ref) => {
+        const bang = ref.lastIndexOf('!');
+        const where = bang < 0 ? `${sheetName}!${ref}` : `${ref.slice(0, bang).replace(/^'|'$/g, '').replace(/''/g, "'")}!${ref.slice(bang + 1)}`;
+        return differing.has(where);
+      });
+      if (upstream.length > 0) c.note = [c.note, `an input differs too (${upstream.slice(0, 5).join(', ')}): this difference may come from there`].filter(Boolean).join('; ');
+    }
+  }
   seconds.compare = (performance.now() - t0) / 1000;
   const differs = cells.some((c) => c.status === 'differs' || c.status === 'not saved');
   const exitCode = problems.length > 0 ? 2 : differs ? 1 : 0;
