@@ -9,7 +9,7 @@ import { writeWorkbookBytes } from '../lib/xlsxWrite';
 import { verifyFile } from '../lib/xlsxVerify';
 import { ph } from '../../src/functions/impl';
 
-export interface XlsxBench { cells: number; fileMiB: number; seconds: Record<string, number>; cellsPerSecond: number; cellsPerCpuSecond: number; differing: number }
+export interface XlsxBench { cells: number; fileMiB: number; peakRssMiB: number; seconds: Record<string, number>; cellsPerSecond: number; cellsPerCpuSecond: number; differing: number }
 
 /**
  * A what-if workbook of `cells` PHMIX cells (every row its own NaCl, so no two calls are the
@@ -34,13 +34,13 @@ export async function benchXlsx(cells = Number(process.env.PROTIC_BENCH_XLSX_CEL
   seconds.solvesAlone = (performance.now() - t1) / 1000;
   const differing = r.cells.filter((c) => c.status !== 'agrees').length;
   const rate = r.cells.length / total;
-  const results: XlsxBench = { cells: r.cells.length, fileMiB: statSync(path).size / 1048576, seconds, cellsPerSecond: rate, cellsPerCpuSecond: r.cells.length / cpuSeconds, differing };
+  const results: XlsxBench = { cells: r.cells.length, fileMiB: statSync(path).size / 1048576, peakRssMiB: process.resourceUsage().maxRSS / 1024, seconds, cellsPerSecond: rate, cellsPerCpuSecond: r.cells.length / cpuSeconds, differing };
   const share = (k: string): string => `${k} ${seconds[k].toFixed(2)} s (${((100 * seconds[k]) / total).toFixed(0)} %)`;
   return {
     results,
     lines: [
       `verify: ${r.cells.length} PHMIX cells saved in a ${results.fileMiB.toFixed(1)} MiB .xlsx, verified from the file`,
-      `  ${rate.toFixed(0)} cells/s (goal ≥ 2,000), ${total.toFixed(2)} s in all; ${results.cellsPerCpuSecond.toFixed(0)} cells per CPU second (the machine is shared); ${differing} cells not agreeing (expected 0)`,
+      `  ${rate.toFixed(0)} cells/s (goal ≥ 2,000), ${total.toFixed(2)} s in all; ${results.cellsPerCpuSecond.toFixed(0)} cells per CPU second (the machine is shared); ${differing} cells not agreeing (expected 0); peak RSS ${results.peakRssMiB.toFixed(0)} MiB (this process, generation included)`,
       `  where the time goes: ${['read', 'evaluate', 'compare'].map(share).join(', ')}`,
       `  of evaluate, the ${cells} PHMIX calls themselves take ${seconds.solvesAlone.toFixed(2)} s when timed outside the sheet; the rest is HyperFormula building its dependency graph (a range vertex per row), and GC`,
       '  (read: unzip and ExcelJS parse of the cells; compare: the per-cell comparison and the report rows)',
