@@ -135,6 +135,20 @@ describe('verify', () => {
     expect(r.stamps).toEqual([expect.objectContaining({ where: 'Review sheet!B14', changed: false })]);
   });
 
+  test('a one-cell result saved as Excel saves it (a 1×1 dynamic array), and a call saved before the add-in loaded', async () => {
+    const cells: RawCell[] = [
+      { ref: 'A1', f: '_xldudf_PROTIC_PKA("phosphate",2)', fAttrs: { t: 'array', ref: 'A1' }, cm: 1, value: pka('phosphate', 2) },
+      { ref: 'B1', f: '_xldudf_PROTIC_VERSION()', fAttrs: { t: 'array', ref: 'B1' }, cm: 1, value: version() },
+    ];
+    const ok = await verifyFile(await file('one-cell.xlsx', { sheets: [{ name: 'S', cells }], dynamicMetadata: true }));
+    expect(ok.exitCode).toBe(0);
+    expect(ok.cells.map((c) => [c.where, c.status])).toEqual([['S!A1', 'agrees'], ['S!B1', 'stamp']]);
+    // typed while Protic was not loaded: Excel keeps the name as typed and saves #NAME?
+    const stuck = await verifyFile(await file('stuck.xlsx', { sheets: [{ name: 'S', cells: [{ ref: 'A1', f: 'PROTIC.PKA("phosphate",2)', fAttrs: { t: 'array', aca: '1', ref: 'A1', ca: '1' }, cm: 1, value: { error: '#NAME?' } }] }], dynamicMetadata: true }));
+    expect(stuck.exitCode).toBe(1);
+    expect(stuck.cells[0].note).toMatch(/Excel did not have Protic loaded/);
+  });
+
   test('the evaluated grid: cross-sheet references, defined names, ANCHORARRAY, SINGLE and IFS', async () => {
     const path = await file('forms-sheet.xlsx', book());
     const r = await cli(sheetMain, [path, '--sheet', 'Review sheet']);
@@ -159,6 +173,19 @@ describe('verify', () => {
     // the tolerance is relative: 0.01 in a pH near 6.9 is 0.0015 of it
     expect((await cli(verifyMain, [path, '--tolerance', '0.002'])).code).toBe(0);
     expect((await cli(verifyMain, [path, '--tolerance', '0.001'])).code).toBe(1);
+  });
+
+  test('a difference carried from an altered input says so', async () => {
+    const cells: RawCell[] = [
+      { ref: 'A1', f: '_xldudf_PROTIC_PKA("phosphate",2)', value: pka('phosphate', 2) + 0.01 },
+      { ref: 'A2', f: '_xldudf_PROTIC_FRACTIONS("phosphate",A1)', fAttrs: { t: 'array', ref: 'A2' }, value: 0 },
+      { ref: 'A3', f: '_xldudf_PROTIC_PKA("phosphate",1)', value: pka('phosphate', 1) + 0.01 },
+    ];
+    const r = await verifyFile(await file('upstream.xlsx', { sheets: [{ name: 'S', cells }] }));
+    const byWhere = new Map(r.cells.map((c) => [c.where, c]));
+    expect(byWhere.get('S!A2')!.note).toMatch(/an input differs too \(A1\): this difference may come from there/);
+    expect(byWhere.get('S!A1')!.note ?? '').not.toMatch(/input differs/);
+    expect(byWhere.get('S!A3')!.note ?? '').not.toMatch(/input differs/);
   });
 
   test('one cell inside a spilled SPECIES altered: exactly that cell, as part of its spill', async () => {
@@ -237,6 +264,11 @@ describe('verify', () => {
     const v = await cli(verifyMain, [carried]);
     expect(v.out).toMatch(/1 custom system\(s\) from the workbook/);
     expect(v.code).toBe(0);
+  });
+
+  test('a workbook without Protic formulas says nothing was verified', async () => {
+    const r = await cli(verifyMain, [await file('plain.xlsx', { sheets: [{ name: 'S', cells: [{ ref: 'A1', value: 1 }, { ref: 'A2', f: 'A1*2', value: 2 }] }] })]);
+    expect(r.out).toMatch(/result: the workbook holds no Protic formula: nothing was verified \(exit 0\)/);
   });
 
   test('progress on stderr for a long workbook', async () => {
@@ -320,6 +352,24 @@ describe('sheet --out', () => {
     expect(r.err).toMatch(/a CSV holds one sheet; name it with --sheet \(sheets: Batch, Review sheet\)/);
     expect((await cli(sheetMain, [two, '--sheet', 'Nope'])).err).toMatch(/no sheet named "Nope"/);
   });
+  test('written as Excel saves it: _xldudf_ names, one-cell and spilled dynamic arrays, the XLDAPR part', async () => {
+    const out = join(dir, 'elution.xlsx');
+    expect((await cli(sheetMain, ['examples/elution-buffer.csv', '--out', out])).code).toBe(0);
+    const zip = await JSZip.loadAsync(readFileSync(out));
+    const xml = await zip.file('xl/worksheets/sheet1.xml')!.async('string');
+    expect(xml).toMatch(/<c r="B8" cm="1"[^>]*><f t="array" ref="B8">_xldudf_PROTIC_PHMIX\(A6:A7,B6:B7,C6:C7,2\)<\/f><v>[0-9.]+<\/v><\/c>/);
+    expect(xml).toMatch(/<c r="A15" cm="1"[^>]*><f t="array" ref="A15:[A-Z]+\d+">_xldudf_PROTIC_SPECIES\(/);
+    expect(xml).not.toMatch(/PROTIC\./);
+    expect(await zip.file('xl/metadata.xml')!.async('string')).toMatch(/<metadataType name="XLDAPR"[\s\S]*fDynamic="1"[\s\S]*<rc t="1" v="0"\/>/);
+    expect(await zip.file('[Content_Types].xml')!.async('string')).toMatch(/PartName="\/xl\/metadata\.xml" ContentType="application\/vnd\.openxmlformats-officedocument\.spreadsheetml\.sheetMetadata\+xml"/);
+  });
+
+  test('several sheets print each under its name', async () => {
+    const r = await cli(sheetMain, [await file('print.xlsx', book())]);
+    expect(r.code).toBe(0);
+    expect(r.out.split('\n').filter((l) => l.startsWith('# sheet '))).toEqual(['# sheet Batch', '# sheet Review sheet']);
+  });
+
   test('a workbook written back keeps its forms and verifies', async () => {
     const out = join(dir, 'forms-out.xlsx');
     expect((await cli(sheetMain, [await file('forms-in.xlsx', book()), '--out', out])).code).toBe(0);
@@ -335,7 +385,7 @@ describe('the README worked example', () => {
     const [wash] = (await writeExampleWorkbooks('examples', join(dir, 'readme'))).filter((p) => p.endsWith('wash-buffer.xlsx'));
     const zip = await JSZip.loadAsync(readFileSync(wash));
     const xml = await zip.file('xl/worksheets/sheet1.xml')!.async('string');
-    zip.file('xl/worksheets/sheet1.xml', xml.replace(/(<c r="B10"[^>]*><f>[^<]*<\/f><v>)([^<]*)(<\/v>)/, (_m, a: string, v: string, b: string) => `${a}${Number(v) + 0.01}${b}`));
+    zip.file('xl/worksheets/sheet1.xml', xml.replace(/(<c r="B10"[^>]*><f[^>]*>[^<]*<\/f><v>)([^<]*)(<\/v>)/, (_m, a: string, v: string, b: string) => `${a}${Number(v) + 0.01}${b}`));
     const signed = join(dir, 'readme', 'wash-buffer-signed.xlsx');
     writeFileSync(signed, await zip.generateAsync({ type: 'nodebuffer' }));
     const r = await cli(verifyMain, [signed]);

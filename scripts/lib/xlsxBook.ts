@@ -39,7 +39,9 @@ export function toWriteWorkbook(book: SavedWorkbook, evaluated: Evaluated, setti
       if (!cell.saved) continue;
       const value = at(cell.row, cell.col)?.value ?? null;
       const out: WriteCell = { value, saved: savedFormula(cell.saved) };
-      const shape = evaluated.shapes.get(cellKey(s, cell.row, cell.col)) ?? cell.spill;
+      // a typed PROTIC.NAME call is written as Excel writes one entered with the add-in loaded: a one-cell dynamic array at least
+      const typed = cell.formula?.forms.includes('PROTIC.NAME as typed') && !cell.spill;
+      const shape = evaluated.shapes.get(cellKey(s, cell.row, cell.col)) ?? cell.spill ?? (typed ? [1, 1] as [number, number] : undefined);
       if (shape) {
         out.spill = shape;
         out.dynamic = cell.spill ? cell.dynamic !== false : true;

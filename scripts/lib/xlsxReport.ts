@@ -22,6 +22,10 @@ const VERDICT: Record<0 | 1 | 2, string> = {
   2: 'parts of the workbook could not be read or recomputed (listed above); the rest was verified',
 };
 
+function verdict(r: VerifyResult): string {
+  return r.exitCode === 0 && r.cells.length === 0 ? 'the workbook holds no Protic formula: nothing was verified' : VERDICT[r.exitCode];
+}
+
 function counts(r: VerifyResult): { agree: number; differ: number; notSaved: number; stamps: number } {
   let agree = 0, differ = 0, notSaved = 0, stamps = 0;
   for (const c of r.cells) {
@@ -61,7 +65,7 @@ export function textReport(r: VerifyResult): string {
     }
     if (bad.length > 200) out.push(`  … and ${bad.length - 200} more (--report FILE.md or FILE.html lists every cell)`);
   }
-  out.push('', `result: ${VERDICT[r.exitCode]} (exit ${r.exitCode})`);
+  out.push('', `result: ${verdict(r)} (exit ${r.exitCode})`);
   return out.join('\n') + '\n';
 }
 
@@ -86,7 +90,7 @@ export function markdownReport(r: VerifyResult): string {
   for (const c of r.cells) {
     out.push(`| ${mdCell(c.where)}${c.spillOf ? ` (spill of ${mdCell(c.spillOf)})` : ''} | \`${mdCell(c.formula)}\` | ${mdCell(showValue(c.saved))} | ${mdCell(showValue(c.recomputed))} | ${showDifference(c)} | ${c.status === 'agrees' ? 'agrees' : `**${c.status}**`}${c.note ? ` (${mdCell(c.note)})` : ''} | ${mdCell(c.computedInputs.join(', '))} |`);
   }
-  out.push('', `**Result: ${VERDICT[r.exitCode]} (exit ${r.exitCode}).**`, '', 'A recomputed pH does not replace a measurement with a calibrated meter.', '');
+  out.push('', `**Result: ${verdict(r)} (exit ${r.exitCode}).**`, '', 'A recomputed pH does not replace a measurement with a calibrated meter.', '');
   return out.join('\n');
 }
 
@@ -112,7 +116,7 @@ export function htmlReport(r: VerifyResult): string {
 <style>${STYLE}</style></head><body>
 <h1>Protic verification report</h1>
 <ul>${headerLines(r).map((l) => `<li>${h(l)}</li>`).join('')}</ul>
-<p class="verdict v${r.exitCode}" id="verdict">${h(VERDICT[r.exitCode])} (exit ${r.exitCode})</p>
+<p class="verdict v${r.exitCode}" id="verdict">${h(verdict(r))} (exit ${r.exitCode})</p>
 ${r.stamps.length > 0 ? `<h2>VERSION stamps</h2><table id="stamps"><tr><th>cell</th><th>saved</th><th>verdict</th></tr>${r.stamps.map((s) => `<tr class="${s.changed ? 'stamp' : ''}"><td>${h(s.where)}</td><td>${h(s.saved)}</td><td>${h(s.verdict)}</td></tr>`).join('')}</table>` : ''}
 ${problems.length > 0 ? `<h2>Could not verify</h2><ul id="problems">${problems.map((p) => `<li>${h(p)}</li>`).join('')}</ul>` : ''}
 <h2>Cells</h2>

@@ -152,6 +152,7 @@ export function verifyBook(file: string, book: SavedWorkbook, options: VerifyOpt
   const stamps: StampReport[] = [];
   const spills: VerifyResult['spills'] = [];
   const unreadable = new Set(problems.map((p) => p.where));
+  const savedBySheet = new Map<number, Map<string, SavedValue>>();
   for (const { s, cell } of protic) {
     const sheet = book.sheets[s];
     const anchor = `${sheet.name}!${a1(cell.row, cell.col)}`;
@@ -179,9 +180,10 @@ export function verifyBook(file: string, book: SavedWorkbook, options: VerifyOpt
     if ((savedShape[0] !== newShape[0] || savedShape[1] !== newShape[1]) && !legacyLarger) {
       spills.push({ where: anchor, saved: `${savedShape[0]}×${savedShape[1]}`, recomputed: `${newShape[0]}×${newShape[1]}` });
     }
-    const savedAt = new Map<string, SavedValue>();
-    for (const other of sheet.cells) {
-      if (other.row >= cell.row && other.row < cell.row + savedShape[0] && other.col >= cell.col && other.col < cell.col + savedShape[1]) savedAt.set(`${other.row}:${other.col}`, other.value);
+    let savedAt = savedBySheet.get(s);
+    if (!savedAt) {
+      savedAt = new Map(sheet.cells.map((other) => [`${other.row}:${other.col}`, other.value] as [string, SavedValue]));
+      savedBySheet.set(s, savedAt);
     }
     for (let r = 0; r < Math.max(savedShape[0], newShape[0]); r++) {
       const label = values[cell.row + r]?.[cell.col];
@@ -203,6 +205,20 @@ export function verifyBook(file: string, book: SavedWorkbook, options: VerifyOpt
         const note = !inSaved ? 'outside the saved spill' : !inNew ? 'outside the recomputed spill' : result.note;
         cells.push({ where, formula, saved, recomputed, computedInputs, ...result, ...(inSaved && inNew ? {} : { status: isBlank(saved) && isBlank(recomputed) ? 'agrees' : 'differs' }), note, ...(r || c ? { spillOf: anchor } : {}) });
       }
+    }
+  }
+  // a difference whose inputs differ too may only be carried from upstream: say which
+  const differing = new Set(cells.filter((c) => c.status === 'differs').map((c) => c.where));
+  if (differing.size > 0) {
+    for (const c of cells) {
+      if (c.status !== 'differs' || c.computedInputs.length === 0) continue;
+      const sheetName = c.where.slice(0, c.where.lastIndexOf('!'));
+      const upstream = c.computedInputs.filter((ref) => {
+        const bang = ref.lastIndexOf('!');
+        const where = bang < 0 ? `${sheetName}!${ref}` : `${ref.slice(0, bang).replace(/^'|'$/g, '').replace(/''/g, "'")}!${ref.slice(bang + 1)}`;
+        return differing.has(where);
+      });
+      if (upstream.length > 0) c.note = [c.note, `an input differs too (${upstream.slice(0, 5).join(', ')}): this difference may come from there`].filter(Boolean).join('; ');
     }
   }
   seconds.compare = (performance.now() - t0) / 1000;

@@ -1,6 +1,7 @@
 // Writes a workbook as Excel saves one: formulas with their computed values, Protic calls in
-// the `_xldudf_PROTIC_NAME` form, spills as dynamic arrays (anchor `<f t="array" ref>` with
-// cm="1" and the XLDAPR block in xl/metadata.xml, the spilled cells holding values), defined
+// the `_xldudf_PROTIC_NAME` form, as dynamic arrays (anchor `<f t="array" ref>` with cm="1" and
+// the XLDAPR block in xl/metadata.xml, the spilled cells holding values; Excel saves even a
+// one-cell custom-function result this way, ref="A1"), defined
 // names, and add-in settings in a web-extension part. ExcelJS writes the sheets; the parts
 // it does not know are added to its zip.
 import ExcelJS from 'exceljs';
@@ -112,7 +113,7 @@ export async function writeWorkbookBytes(book: WriteWorkbook): Promise<Buffer> {
       }
       const result = excelValue(cell.value) ?? undefined;
       if (cell.spill && (cell.spill[0] > 1 || cell.spill[1] > 1 || cell.dynamic !== false)) {
-        const ref = `${a1(r, c)}:${a1(r + cell.spill[0] - 1, c + cell.spill[1] - 1)}`;
+        const ref = cell.spill[0] === 1 && cell.spill[1] === 1 ? a1(r, c) : `${a1(r, c)}:${a1(r + cell.spill[0] - 1, c + cell.spill[1] - 1)}`;
         target.value = { formula, result, shareType: 'array', ref } as unknown as ExcelJS.CellFormulaValue;
         if (cell.dynamic !== false) {
           if (!anchors.has(index)) anchors.set(index, new Set());
