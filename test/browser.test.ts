@@ -126,7 +126,7 @@ describe('the side pane in headless Chromium', () => {
     await page.waitForFunction(() => (window as unknown as Writes).__writes.length === 2);
     const writes = await page.evaluate(() => (window as unknown as Writes).__writes);
     expect(writes[0].formulas[6][0]).toBe('=PROTIC.SPECIES(B3:B4,C3:C4,D3:D4,C5,C6,C7)');
-    expect(writes[0].at[3]).toBe(5);
+    expect(writes[0].at[3]).toBe(11); // CONSTANTS spills eleven columns (source, provenance and the alternative value among them)
     expect(writes[1].formulas[5]).toEqual(['Temperature (°C)', 'pH', 'Warnings']);
     expect(writes[1].formulas[6]).toEqual([4, '=PROTIC.PHMIX(B3:B4,C3:C4,D3:D4,C5,B8,C6)', '=PROTIC.WARNINGS(B3:B4,C3:C4,D3:D4,C5,B8,C6)']);
     expect(await page.textContent('#status')).toMatch(/^Wrote B2:D/);
