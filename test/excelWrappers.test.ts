@@ -10,7 +10,6 @@ class StandInError extends Error {
   associate: () => undefined,
 };
 
-// eslint-disable-next-line @typescript-eslint/no-require-imports
 const { EXCEL_FUNCTIONS } = require('../src/functions/functions') as typeof import('../src/functions/functions');
 
 const R = [['KH2PO4'], ['Na2HPO4']];

@@ -44,7 +44,7 @@ function balance(m: Matrix): void {
 
 /** Positive real roots of a polynomial (lowest power first) via the companion matrix. */
 function positiveRoots(p: Poly): number[] {
-  let q = [...p];
+  const q = [...p];
   while (q.length > 1 && q[q.length - 1] === 0) q.pop();
   const n = q.length - 1;
   const lead = q[n];
@@ -135,7 +135,6 @@ describe('solver against an independent polynomial root (ml-matrix eigenvalues),
         expect(rel).toBeLessThan(1e-9);
       },
     ), { numRuns: 200, seed: 20261201 });
-    // eslint-disable-next-line no-console
     console.log(`worst relative deviation from the polynomial root: ${worst.toExponential(2)}`);
   });
 });
@@ -187,7 +186,6 @@ describe('solver against the independent root with Davies activity coefficients'
         expect(rel).toBeLessThan(1e-9);
       },
     ), { numRuns: 200, seed: 20261202 });
-    // eslint-disable-next-line no-console
     console.log(`Davies: worst relative deviation from the independent root: ${worst.toExponential(2)}`);
   });
 });

@@ -176,7 +176,6 @@ type Fn = (...a: unknown[]) => unknown;
 /** SALTDOSE lives in its own module; on a version without it, its cases report as internal errors. */
 function saltDoseFunction(): Fn {
   try {
-    // eslint-disable-next-line @typescript-eslint/no-require-imports
     return (require('../src/functions/saltdose') as { saltDose: Fn }).saltDose;
   } catch {
     return () => { throw new Error('SALTDOSE is not in this version'); };

@@ -31,7 +31,6 @@ function freshFunctions(office: unknown): Fns {
   (global as unknown as { Office: unknown }).Office = office;
   // a fresh engine registry too: it lives on globalThis so the pane and functions share it
   delete (globalThis as Record<string, unknown>).__proticCustomDefinitions;
-  // eslint-disable-next-line @typescript-eslint/no-require-imports
   return (require('../src/functions/functions') as typeof import('../src/functions/functions')).EXCEL_FUNCTIONS;
 }
 

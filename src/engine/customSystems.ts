@@ -18,7 +18,7 @@ export interface CustomFormDefinition { name: string; formula: string; protonsLo
 export interface CustomSystemDefinition { name: string; pKa: number[]; charge: number; dH?: number[]; dCp?: number[]; forms?: CustomFormDefinition[] }
 
 /** Names: letters, digits, spaces and a little punctuation; never markup. */
-const SAFE_NAME = /^[\p{L}\p{N} ()+,.'\-]{1,60}$/u;
+const SAFE_NAME = /^[\p{L}\p{N} ()+,.'-]{1,60}$/u;
 /** Elements in a form's formula taken as its counter-ions, and the strong ion each releases. */
 const COUNTER_IONS: Record<string, string> = { Na: 'Na+', K: 'K+', Li: 'Li+', Cl: 'Cl-', Br: 'Br-' };
 

@@ -35,6 +35,7 @@ function checksum(text: string): string {
 }
 
 function cleanLabel(text: string): string {
+  // eslint-disable-next-line no-control-regex -- control characters in a label would break the handle's one-line text
   return text.replace(/[⟦⟧\u0000-\u001f]/g, ' ').replace(/\s+/g, ' ').trim();
 }
 

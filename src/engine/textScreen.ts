@@ -111,6 +111,7 @@ export function screenText(text: string, argument: string, row?: number, readsAs
       meant = undefined; // the folded text names nothing either: the character alone is reported
     }
     fail({
+      // eslint-disable-next-line no-control-regex -- control characters are shown as '?' so the message stays printable
       code: 'bad_character', argument, row, received: quote(text.replace(/[\u0000-\u001f\u007f]/g, '?')), position: problem.position,
       expected: `plain Latin letters, digits and the usual signs; character ${problem.position} is ${problem.codePoint} ${problem.description} (retype it)`
         + (meant ? `; retyped, it would read as ${meant}` : ''),
