@@ -12,7 +12,8 @@ import { loadSystemsFile } from './lib/systemsFile';
 import { csvToSaved, toWriteWorkbook } from './lib/xlsxBook';
 import { evaluateSaved } from './lib/xlsxEvaluate';
 import type { Evaluated } from './lib/xlsxEvaluate';
-import { XlsxInputError, readWorkbookFile } from './lib/xlsxRead';
+import { readWorkbookFile } from './lib/xlsxRead';
+import { failureExit, runCommand } from './lib/cli';
 import type { SavedWorkbook } from './lib/xlsxRead';
 import { writeWorkbookBytes } from './lib/xlsxWrite';
 import { SETTINGS_KEY, loadCustomSystems } from './lib/xlsxVerify';
@@ -107,14 +108,8 @@ export async function main(argv: string[], out: (s: string) => void = (s) => pro
     for (const p of run.evaluated.problems) err(`cannot evaluate ${p.where}: ${p.message}\n`);
     return run.evaluated.problems.length > 0 ? 2 : 0;
   } catch (e) {
-    if (e instanceof XlsxInputError) { err(`sheet: ${files[0]}: ${e.message}\n`); return 2; }
-    err(`sheet: internal error, please report it: ${(e as Error).message}\n`);
-    return 2;
+    return failureExit('sheet', files[0], e, err);
   }
 }
 
-if (require.main === module) {
-  // a reader that stops early (| head) is not an error
-  process.stdout.on('error', (error: NodeJS.ErrnoException) => { if (error.code === 'EPIPE') process.exit(0); else throw error; });
-  main(process.argv.slice(2)).then((code) => { process.exitCode = code; }, (e: Error) => { process.stderr.write(`sheet: internal error: ${e.message}\n`); process.exitCode = 2; });
-}
+if (require.main === module) runCommand('sheet', (argv) => main(argv));

@@ -2,7 +2,7 @@
 //   [--strict-version] [--max-size MB]: recomputes every Protic cell of a saved workbook and
 // compares it with the value Excel saved. Exit 0 all agree, 1 some differ, 2 cannot be read.
 import { writeFileSync } from 'fs';
-import { XlsxInputError } from './lib/xlsxRead';
+import { failureExit, runCommand } from './lib/cli';
 import { htmlReport, markdownReport, textReport } from './lib/xlsxReport';
 import { verifyFile } from './lib/xlsxVerify';
 
@@ -40,13 +40,8 @@ export async function main(argv: string[], out: (s: string) => void = (s) => pro
     }
     return result.exitCode;
   } catch (e) {
-    if (e instanceof XlsxInputError) { err(`verify: ${files[0]}: ${e.message}\n`); return 2; }
-    err(`verify: internal error, please report it: ${(e as Error).message}\n`);
-    return 2;
+    return failureExit('verify', files[0], e, err);
   }
 }
 
-if (require.main === module) {
-  process.stdout.on('error', (error: NodeJS.ErrnoException) => { if (error.code === 'EPIPE') process.exit(0); else throw error; });
-  main(process.argv.slice(2)).then((code) => { process.exitCode = code; }, (e: Error) => { process.stderr.write(`verify: internal error: ${e.message}\n`); process.exitCode = 2; });
-}
+if (require.main === module) runCommand('verify', (argv) => main(argv));
