@@ -1,4 +1,4 @@
-import { MODEL_LIMIT_MOLAL, parseReagentSpec, systemFor, titrantUnit } from '../engine';
+import { ACTIVITY_MODELS, MODEL_LIMIT_MOLAL, parseReagentSpec, systemFor, titrantUnit } from '../engine';
 import * as impl from '../functions/impl';
 import {
   MAX_TABLE_ROWS, WHAT_IF_TEMPERATURES_C, curveBlock, fractionsBlock, fractionsRowCount, phBlock, recipeBlock, speciesBlock, temperatureTableBlock, titrantBlock,
@@ -6,19 +6,30 @@ import {
 import type { Block, MixtureInput } from './blocks';
 import { Refusal } from './refusal';
 
-// The blocks the pane writes, as one table: adding a block is one entry here, adding an activity model
-// one entry in MODEL_CHOICES. Each entry names the fields it needs (the pane shows only those) and checks
+// The blocks the pane writes, as one table: adding a block is one entry here; an activity model the engine
+// adds is offered at once (MODEL_CHOICES follows ACTIVITY_MODELS), named in MODEL_LABELS. Each entry names the fields it needs (the pane shows only those) and checks
 // its inputs with the very functions its cells will run before anything is written.
 
 /** Groups of fields in the pane's "Into the sheet" form. */
 export type FieldGroup = 'mixture' | 'model' | 'titrant' | 'curve-end' | 'points' | 'recipe' | 'fractions';
 
-/** Activity models the pane offers (ids as the functions take them, names as published). */
-export const MODEL_CHOICES: { id: string; label: string }[] = [
-  { id: 'davies', label: `Davies (to about ${MODEL_LIMIT_MOLAL.davies} mol/kg)` },
-  { id: 'bates-guggenheim', label: `Bates–Guggenheim (to about ${MODEL_LIMIT_MOLAL['bates-guggenheim']} mol/kg)` },
-  { id: 'ideal', label: 'Ideal (no activity correction)' },
-];
+/**
+ * Names of the activity models the engine knows, as published, each with its range (mol/kg) when it has one.
+ * Keyed by model id as the functions take it; a model the engine adds later is offered under its id until named here.
+ */
+export const MODEL_LABELS: Record<string, (limitMolal: number | undefined) => string> = {
+  davies: (limit) => `Davies (to about ${limit} mol/kg)`,
+  'bates-guggenheim': (limit) => `Bates–Guggenheim (to about ${limit} mol/kg)`,
+  sit: (limit) => `SIT, specific ion interaction (to about ${limit ?? 3} mol/kg)`,
+  ideal: () => 'Ideal (no activity correction)',
+};
+
+/** Activity models the pane offers: every model the engine takes, in the engine's order (its default first). */
+export const MODEL_CHOICES: { id: string; label: string }[] = ACTIVITY_MODELS.map((id) => {
+  const limit = (MODEL_LIMIT_MOLAL as Record<string, number | undefined>)[id];
+  const label = MODEL_LABELS[id];
+  return { id, label: label ? label(limit) : limit ? `${id} (to about ${limit} mol/kg)` : id };
+});
 
 /** What a block reads from the pane; each reader refuses a blank or malformed box with its label. */
 export interface BlockInputs {
