@@ -144,4 +144,21 @@ describe('PHTEMP refusals', () => {
     const [cell] = cells(ACETATE, [`=PROTIC.PHTEMP(${limit},${MIX},,,${from},${to})`]);
     expect(cell).toEqual({ error: '#N/A', message: expect.stringContaining('the pH crosses it 2 times') });
   });
+
+  test('a turn inside the first scan interval is found by the probe just inside the end', () => {
+    const min = acetateMinimum();
+    // the turn 0.5 °C above fromC, in the first of 8 intervals of 1 °C: the samples rise from fromC on
+    const [from, to] = [min.t - 0.5, min.t + 7.5];
+    const [atFrom, atNext] = cells(ACETATE, [`=PROTIC.PHMIX(${MIX},,${from})`, `=PROTIC.PHMIX(${MIX},,${from + 1})`]) as number[];
+    const limit = min.pH + 0.3 * (Math.min(atFrom, atNext) - min.pH);
+    const [cell, ...fed] = cells(ACETATE, [`=PROTIC.PHTEMP(${limit},${MIX},,,${from},${to})`]);
+    expect(fed).toEqual([]);
+    expect(cell).toEqual({ error: '#N/A', message: expect.stringContaining('the pH crosses it 2 times') });
+    // and at the far end: the turn 0.5 °C below toC
+    const [from2, to2] = [min.t - 7.5, min.t + 0.5];
+    const [atTo, atBefore] = cells(ACETATE, [`=PROTIC.PHMIX(${MIX},,${to2})`, `=PROTIC.PHMIX(${MIX},,${to2 - 1})`]) as number[];
+    const limit2 = min.pH + 0.3 * (Math.min(atTo, atBefore) - min.pH);
+    const [cell2] = cells(ACETATE, [`=PROTIC.PHTEMP(${limit2},${MIX},,,${from2},${to2})`]);
+    expect(cell2).toEqual({ error: '#N/A', message: expect.stringContaining('the pH crosses it 2 times') });
+  });
 });

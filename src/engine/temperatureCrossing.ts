@@ -16,6 +16,8 @@ import { WATER_RANGE_C } from './water';
 export const CROSSING_SCAN_STEP_C = 1;
 /** Fewest scan intervals, so a narrow range typed by the user is still sampled inside. */
 const MIN_SCAN_INTERVALS = 8;
+/** Where the end intervals are probed for a turn, as a fraction of the interval from the end. */
+const END_PROBE = 0.01;
 /** Golden-section steps that locate a turn of the pH between samples: 0.618^40 of 2 °C is far below any pH effect. */
 const TURN_STEPS = 40;
 
@@ -48,8 +50,8 @@ interface Sample { t: number; pH: number }
  * Temperature, °C, in [fromC, toC] (default: the range the mixture's data hold for) at which the
  * mixture's pH equals `limitPH`, verified by a forward solve within PH_TOLERANCE. No crossing is
  * `unreachable_target` with the pH range over the temperatures; more than one is `several_crossings`
- * naming each. The scan steps at most CROSSING_SCAN_STEP_C and locates every turn of the pH it sees
- * (three samples out of order); a pH that turns and comes back within one step of either end is not seen.
+ * naming each. The scan steps at most CROSSING_SCAN_STEP_C and locates every turn of the pH it sees (three samples
+ * out of order, or a probe 1 % of a step inside an end); it assumes at most one turn between neighbouring samples.
  * Example: temperatureForPH(8.3, buildContents(rows, 1), 'davies').temperatureC → about 19.6 for 50 mM Tris + 50 mM Tris-HCl.
  */
 export function temperatureForPH(limitPH: number, contents: Contents, model: ActivityModel, fromC?: number, toC?: number): PHCrossing {
@@ -71,10 +73,15 @@ export function temperatureForPH(limitPH: number, contents: Contents, model: Act
   }
   // a turn seen in the samples is located, so a limit the pH reaches only between two samples is bracketed
   const turns: Sample[] = [];
-  for (let i = 1; i < intervals; i++) {
-    const [a, b, c] = [samples[i - 1], samples[i], samples[i + 1]];
+  const turnIn = (a: Sample, b: Sample, c: Sample): void => {
     if ((b.pH - a.pH) * (c.pH - b.pH) < 0) turns.push(turnBetween(a.t, c.t, b.pH > a.pH, pHAt));
-  }
+  };
+  for (let i = 1; i < intervals; i++) turnIn(samples[i - 1], samples[i], samples[i + 1]);
+  // a turn inside the first or last interval shows as a probe just inside the end going the other way
+  const probe = (t: number): Sample => { const q = { t, pH: pHAt(t) }; turns.push(q); return q; };
+  const [s0, s1, sm, sn] = [samples[0], samples[1], samples[intervals - 1], samples[intervals]];
+  turnIn(s0, probe(s0.t + END_PROBE * (s1.t - s0.t)), s1);
+  turnIn(sm, probe(sn.t - END_PROBE * (sn.t - sm.t)), sn);
   const all = [...samples, ...turns].sort((x, y) => x.t - y.t);
   const miss = (s: Sample): number => s.pH - limitPH;
 
