@@ -3,6 +3,7 @@ import type { Server } from 'http';
 import { join } from 'path';
 import type { Browser, Page } from 'playwright-core';
 import { buildAddin, closeAll, launchChromium, serveFolder } from './browser/harness';
+import { ACTIVITY_MODELS } from '../src/engine';
 
 
 // The built pane in headless Chromium, with a stand-in Office host.
@@ -130,6 +131,42 @@ describe('the side pane in headless Chromium', () => {
     expect(writes[1].formulas[5]).toEqual(['Temperature (°C)', 'pH', 'Warnings']);
     expect(writes[1].formulas[6]).toEqual([4, '=PROTIC.PHMIX(B3:B4,C3:C4,D3:D4,C5,B8,C6)', '=PROTIC.WARNINGS(B3:B4,C3:C4,D3:D4,C5,B8,C6)']);
     expect(await page.textContent('#status')).toMatch(/^Wrote B2:D/);
+    await page.close();
+  }, 60000);
+
+  test('the salt and review blocks are written from the pane; the model list is the engine\'s', async () => {
+    const { page } = await openPane();
+    type Writes = { __writes: { at: number[]; formulas: unknown[][] }[] };
+    expect(await page.$$eval('#model option', (os) => os.map((o) => (o as HTMLOptionElement).value))).toEqual([...ACTIVITY_MODELS]);
+    expect(await page.isVisible('#salt')).toBe(false);
+    await page.selectOption('#formula-kind', 'salt');
+    expect(await page.isVisible('#salt')).toBe(true);
+    expect(await page.isVisible('#target-ionic-strength')).toBe(true);
+    await page.fill('#salt', '');
+    await page.click('#insert');
+    expect(await page.textContent('#status')).toMatch(/Salt is blank/);
+    await page.fill('#salt', '4 M NaCl');
+    await page.fill('#target-ionic-strength', '0.3');
+    await page.click('#insert');
+    await page.waitForFunction(() => (window as unknown as Writes).__writes.length === 1);
+    let writes = await page.evaluate(() => (window as unknown as Writes).__writes);
+    expect(writes[0].formulas[3].slice(0, 3)).toEqual(['4 M NaCl', '=PROTIC.SALTDOSE(C9,B5,B3:B4,C3:C4,D3:D4,C6,C7,C8,D5)', 'mL']);
+    expect(writes[0].formulas[8][1]).toBe('=PROTIC.IONICSTRENGTH(B3:B5,C3:C5,D3:D5,C6,C7,C8)');
+    expect(await page.textContent('#status')).toMatch(/^Wrote B2:E12/);
+
+    await page.selectOption('#formula-kind', 'review');
+    expect(await page.isVisible('#salt')).toBe(false);
+    await page.click('#insert');
+    await page.waitForSelector('#insert-question [data-answer="yes"]');
+    await page.click('#insert-question [data-answer="yes"]');
+    await page.waitForFunction(() => (window as unknown as Writes).__writes.length === 2);
+    writes = await page.evaluate(() => (window as unknown as Writes).__writes);
+    const formulas = writes[1].formulas.map((r) => r[0]).filter((x) => typeof x === 'string' && x.startsWith('='));
+    expect(formulas).toEqual([
+      '=PROTIC.READBACK(B3:B4,C3:C4,D3:D4,C5,C6)', '=PROTIC.HANDCHECK(B3:B4,C3:C4,D3:D4,C5,C6)',
+      '=PROTIC.UNCERTAINTY(B3:B4,C3:C4,D3:D4,C5,C6,C7,E3:E4,E5,E6)',
+    ]);
+    expect(writes[1].at[3]).toBe(9); // READBACK and UNCERTAINTY spill nine columns
     await page.close();
   }, 60000);
 

@@ -26,6 +26,7 @@ const CONTRACT: Record<string, string[]> = {
   PKA: ['system', 'step', 'temperature', 'ionicStrength', 'model'],
   RECIPE: ['acidForm', 'baseForm', 'targetPH', 'concentration', 'volume', 'temperature', 'model', 'otherReagents', 'otherAmounts', 'otherUnits'],
   SALTDOSE: ['targetIonicStrength', 'salt', 'reagents', 'amounts', 'units', 'volume', 'temperature', 'model', 'resultUnit'],
+  PHTEMP: ['limitPH', 'reagents', 'amounts', 'units', 'volume', 'model', 'fromC', 'toC'],
   MOLARMASS: ['formula'],
   VERSION: [],
 };

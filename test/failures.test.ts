@@ -2,6 +2,7 @@ import { FAILURE_CODES, ProticError, describeFailure } from '../src/engine';
 import type { FailureCode } from '../src/engine';
 import * as impl from '../src/functions/impl';
 import { toCellFailure } from '../src/functions/outcome';
+import { phTemp } from '../src/functions/phtemp';
 
 function failureOf(run: () => unknown): { code: FailureCode; message: string; kind: string } {
   try {
@@ -33,6 +34,8 @@ const CASES: [FailureCode, () => unknown, RegExp, string][] = [
   ['shape_mismatch', () => impl.ph([P], [[1, 2, 3]], 'g', 1), /amounts: ranges of different shapes\. Received a 1×3 range; expected the same shape as reagents \(1×2\)/, '#VALUE!'],
   ['missing_volume', () => impl.ph([P], [G], 'g'), /volume, row 1: final volume needed\. .*because row 1 is a mass \(g\)/, '#VALUE!'],
   ['out_of_range', () => impl.ph([P], [G], 'g', 1, 90), /temperature: outside the range the data hold for\. Received 90 °C; expected 0 to 60 °C, the range the phosphate data hold for/, '#VALUE!'],
+  // acetate's pKa has a minimum near 22 °C, so a 1:1 acetate buffer's pH falls then rises between 0 and 60 °C
+  ['several_crossings', () => phTemp(4.68, [['acetic acid'], ['sodium acetate']], [[50], [50]], 'mM'), /limitPH: more than one answer: the pH crosses it 2 times, at [\d.]+ °C, [\d.]+ °C\. Received pH 4\.68; expected a fromC and toC that enclose one crossing/, '#N/A'],
   ['unreachable_target', () => impl.titrant(5, [P], [G], 'g', 1, '1 M NaOH'), /targetPH: target cannot be reached: the mixture starts at pH 6\.88 and 1 M sodium hydroxide raises it, but the target is on the other side/, '#N/A'],
 ];
 

@@ -4,7 +4,8 @@ import { clearCustomDefinitions } from '../src/engine';
 import * as impl from '../src/functions/impl';
 import { SPILL_SHAPES, WHAT_IF_TEMPERATURES_C, curveBlock, fractionsBlock, phBlock, recipeBlock, speciesBlock, temperatureTableBlock, titrantBlock } from '../src/taskpane/blocks';
 import type { Block } from '../src/taskpane/blocks';
-import { BLOCK_KINDS, MODEL_CHOICES, blockKind, titrantUnitSymbol } from '../src/taskpane/blockKinds';
+import { BLOCK_KINDS, MODEL_CHOICES, MODEL_LABELS, blockKind, modelChoices, titrantUnitSymbol } from '../src/taskpane/blockKinds';
+import { ACTIVITY_MODELS, MODEL_LIMIT_MOLAL } from '../src/engine';
 import type { BlockInputs } from '../src/taskpane/blockKinds';
 import { SETTINGS_KEY, definitionFromInputs, deleteDefinition, loadFromSettings, saveDefinition } from '../src/taskpane/customStore';
 import { readStoredSystems } from '../src/functions/workbookSystems';
@@ -13,6 +14,12 @@ import { placeMarkLabels } from '../src/taskpane/chartLabels';
 import { themeFromOffice } from '../src/taskpane/theme';
 import type { SettingsLike } from '../src/taskpane/customStore';
 import { writeBlockAtSelection } from '../src/taskpane/excelWriter';
+import { saltBlock } from '../src/taskpane/saltBlock';
+import { reviewBlock } from '../src/taskpane/reviewBlock';
+import { saltDose } from '../src/functions/saltdose';
+import { readback } from '../src/functions/readback';
+import { handcheck } from '../src/functions/handcheck';
+import { uncertainty } from '../src/functions/uncertainty';
 import { searchCatalogue, suggestedForms, systemView } from '../src/taskpane/catalogueView';
 
 const MIX = { rows: [{ reagent: 'KH2PO4', amount: 3.4, unit: 'g' }, { reagent: 'Na2HPO4', amount: 3.55, unit: 'g' }], volumeL: 1, temperatureC: 25 };
@@ -294,11 +301,12 @@ describe('nothing lost: the sheet (office-addin-mock worksheet, HyperFormula)', 
 });
 
 /** BlockInputs as the pane would read them, with overrides. */
-function fakeInputs(over: Partial<Record<'fromPH' | 'toPH' | 'stepPH', number>> & { titrant?: string } = {}): BlockInputs {
+function fakeInputs(over: Partial<Record<'fromPH' | 'toPH' | 'stepPH' | 'targetIonicStrengthM', number>> & { titrant?: string; salt?: string } = {}): BlockInputs {
   return {
     mixture: () => ({ ...MIX, model: 'davies' }), volumeL: () => 1, model: () => 'davies', titrant: () => over.titrant ?? '1 M NaOH', targetPH: () => 7.4,
     temperatureC: () => 25, ionicStrengthM: () => 0, curveEnd: () => 20, points: () => 21, acidForm: () => 'NaH2PO4·H2O', baseForm: () => 'Na2HPO4·7H2O',
     concentrationM: () => 0.1, fromPH: () => over.fromPH ?? 2, toPH: () => over.toPH ?? 12, stepPH: () => over.stepPH ?? 0.5, systemId: () => 'phosphate',
+    salt: () => over.salt ?? 'NaCl', targetIonicStrengthM: () => over.targetIonicStrengthM ?? 0.15,
   };
 }
 
@@ -322,10 +330,27 @@ describe('every block kind: its spill room comes from SPILL_SHAPES and its cells
     const curve = impl.curve(...args.slice(0, 4) as [string[][], number[][], string, number], '1 M NaOH', 10, 7) as unknown[][];
     expect(SPILL_SHAPES.CURVE(7)).toEqual([curve.length, curve[0].length]);
     expect(SPILL_SHAPES.FRACTIONS(4)).toEqual([1, impl.fractions('phosphate', 7)[0].length]);
+    const rb = readback(...args), hc = handcheck(...args), un = uncertainty(...args, 'davies');
+    expect(SPILL_SHAPES.READBACK(rb.length)).toEqual([rb.length, rb[0].length]);
+    expect(SPILL_SHAPES.HANDCHECK(hc.length)).toEqual([hc.length, hc[0].length]);
+    expect(SPILL_SHAPES.UNCERTAINTY(un.length)).toEqual([un.length, un[0].length]);
   });
 
   test('every model choice is one the functions take', () => {
     for (const m of MODEL_CHOICES) expect(impl.ph([['KH2PO4']], [[1]], 'g', 1, 25, m.id)).toBeGreaterThan(0);
+  });
+
+  test('every engine model is offered, in the engine order, each under its published name', () => {
+    expect(MODEL_CHOICES.map((m) => m.id)).toEqual([...ACTIVITY_MODELS]);
+    for (const id of ACTIVITY_MODELS) expect(Object.keys(MODEL_LABELS)).toContain(id);
+    expect(MODEL_CHOICES.find((m) => m.id === 'davies')?.label).toBe(`Davies (to about ${MODEL_LIMIT_MOLAL.davies} mol/kg)`);
+  });
+
+  test('a model the engine adds appears with no pane edit: sit under its name, an unnamed one under its id', () => {
+    const choices = modelChoices([...ACTIVITY_MODELS, 'sit', 'future'], { ...MODEL_LIMIT_MOLAL, sit: 3, future: 1 });
+    expect(choices.find((m) => m.id === 'sit')?.label).toBe('SIT, specific ion interaction (to about 3 mol/kg)');
+    expect(choices.find((m) => m.id === 'future')?.label).toBe('future (to about 1 mol/kg)');
+    expect(choices.map((m) => m.id)).toEqual([...ACTIVITY_MODELS, 'sit', 'future']);
   });
 });
 
@@ -478,5 +503,100 @@ describe('catalogue view', () => {
     expect(v.forms[0].molarMassGPerMol).toBeCloseTo(97.995, 2);
     expect(v.steps[0].source).toMatch(/^Bates 1951.*checked/); // step 1 checked in its primary source
     expect(v.steps[1].source).toMatch(/Goldberg/);
+  });
+});
+
+const P_ARGS = [[['KH2PO4'], ['Na2HPO4']], [[3.4], [3.55]], 'g', 1, 25] as const;
+
+describe('the salt block: SALTDOSE of the rows, and IONICSTRENGTH of the rows with the salt as the check', () => {
+  test('the salt is one more row whose amount is SALTDOSE of the rows above; the checks read every row', () => {
+    const b = saltBlock(MIX, { salt: 'NaCl', targetIonicStrengthM: 0.15, saltUnitSymbol: 'g' }, 0, 0);
+    expect(b.cells.map((r) => r.slice(0, 3))).toEqual([
+      ['Reagent', 'Amount', 'Unit'], ['KH2PO4', 3.4, 'g'], ['Na2HPO4', 3.55, 'g'],
+      ['NaCl', '=PROTIC.SALTDOSE(B8,A4,A2:A3,B2:B3,C2:C3,B5,B6,B7,C4)', 'g'],
+      ['Volume (L), salt included', 1, null], ['Temperature (°C)', 25, null], ['Activity model', 'davies', null], ['Target ionic strength (mol/L)', 0.15, null],
+      ['Ionic strength with the salt (mol/L)', '=PROTIC.IONICSTRENGTH(A2:A4,B2:B4,C2:C4,B5,B6,B7)', ''],
+      ['pH with the salt', '=PROTIC.PHMIX(A2:A4,B2:B4,C2:C4,B5,B6,B7)', null],
+      ['Warnings (with the salt)', '=PROTIC.WARNINGS(A2:A4,B2:B4,C2:C4,B5,B6,B7)', null],
+    ]);
+  });
+
+  test.each([['NaCl', 0.15, 'g'], ['4 M NaCl', 0.5, 'mL'], ['(NH4)2SO4', 0.3, 'g']])('%s to %d mol/L: written from the pane, computed in a real sheet, the check within 1e-9 of the target', (salt, target, unit) => {
+    const block = blockKind('salt').prepare(fakeInputs({ salt, targetIonicStrengthM: target }))(0, 0);
+    expect(block.cells[3][2]).toBe(unit);
+    const v = evaluateSheet(block.cells);
+    expect(v[3][1]).toBeCloseTo(saltDose(target, salt, P_ARGS[0], P_ARGS[1], P_ARGS[2], 1, 25, 'davies', unit), 12);
+    expect(v[3][1] as number).toBeGreaterThan(0);
+    expect(Math.abs((v[8][1] as number) - target)).toBeLessThanOrEqual(1e-9 * target);
+    expect(typeof v[9][1]).toBe('number');
+  });
+
+  test.each([
+    ['a target below the mixture\'s own ionic strength', { targetIonicStrengthM: 0.05 }, /targetIonicStrength: target cannot be reached: the mixture's ionic strength is already 0\.1 mol\/L/],
+    ['an unknown salt', { salt: 'unobtainium' }, /salt: unknown reagent/],
+    ['a blank salt', { salt: '' }, /unknown reagent|blank/],
+  ])('%s is refused before anything is written', async (_, over, message) => {
+    const { writes } = mockExcel(0, 0);
+    expect(() => blockKind('salt').prepare(fakeInputs(over))).toThrow(message);
+    expect(writes).toEqual([]);
+  });
+
+  test('over user cells it asks first, and a "no" writes nothing', async () => {
+    const { grid, writes } = mockExcel(0, 0, { '3,3': 'lot note', '9,1': 7 });
+    const asked: [string, number][] = [];
+    const build = blockKind('salt').prepare(fakeInputs());
+    const outcome = await writeBlockAtSelection(build, async (range, count) => { asked.push([range, count]); return false; });
+    expect(asked).toEqual([['A1:D11', 2]]);
+    expect(outcome).toEqual({ kind: 'cancelled', range: 'A1:D11', count: 2 });
+    expect(writes).toEqual([]);
+    expect(grid.get('3,3')).toBe('lot note');
+  });
+});
+
+describe('the review block: READBACK, HANDCHECK and UNCERTAINTY of the mixture, each spill\'s room reserved', () => {
+  const spills = () => ({ readback: readback(...P_ARGS).length, handcheck: handcheck(...P_ARGS).length, uncertainty: uncertainty(...P_ARGS, 'davies').length });
+
+  test('the spills compute the same tables as the functions, in the room left for them', () => {
+    const block = blockKind('review').prepare(fakeInputs())(0, 0);
+    const s = spills();
+    expect(block.cells).toHaveLength(8 + 3 + s.readback + s.handcheck + s.uncertainty);
+    expect(block.cells[0]).toEqual(['Reagent', 'Amount', 'Unit', '± tolerance (its unit)', null, null, null, null, null]);
+    const v = evaluateSheet(block.cells);
+    const rbAt = 9, hcAt = rbAt + s.readback + 1, unAt = hcAt + s.handcheck + 1;
+    expect(block.cells[rbAt][0]).toBe('=PROTIC.READBACK(A2:A3,B2:B3,C2:C3,B4,B5)');
+    expect(block.cells[hcAt][0]).toBe('=PROTIC.HANDCHECK(A2:A3,B2:B3,C2:C3,B4,B5)');
+    expect(block.cells[unAt][0]).toBe('=PROTIC.UNCERTAINTY(A2:A3,B2:B3,C2:C3,B4,B5,B6,D2:D3,D4,D5)');
+    expect(v.slice(rbAt, rbAt + s.readback)).toEqual(readback(...P_ARGS));
+    expect(v.slice(hcAt, hcAt + s.handcheck).map((r) => r.slice(0, 4))).toEqual(handcheck(...P_ARGS));
+    expect(v.slice(unAt, unAt + s.uncertainty)).toEqual(uncertainty(...P_ARGS, 'davies', [[0], [0]], 0, 0));
+    expect(v[6][1]).toBeCloseTo(impl.ph(...P_ARGS), 12);
+    expect(v.flat().filter((x) => typeof x === 'string' && /^#/.test(x))).toEqual([]);
+  });
+
+  test('tolerances typed into the block reach UNCERTAINTY: ±0.01 g, ±0.002 L, ±0.5 °C give the README\'s u(pH) 0.0116', () => {
+    const block = reviewBlock(MIX, spills(), 0, 0);
+    const cells = block.cells.map((r) => [...r]);
+    cells[1][3] = 0.01; cells[2][3] = 0.01; cells[3][3] = 0.002; cells[4][3] = 0.5;
+    const v = evaluateSheet(cells);
+    const unAt = 9 + spills().readback + 1 + spills().handcheck + 1;
+    const table = v.slice(unAt, unAt + spills().uncertainty);
+    expect(table).toEqual(uncertainty(...P_ARGS, 'davies', [[0.01], [0.01]], 0.002, 0.5));
+    const combined = table.find((r) => r[0] === 'combined standard uncertainty u(pH)')![1] as number;
+    expect(Math.abs(combined - 0.0116)).toBeLessThanOrEqual(5e-5);
+  });
+
+  test('only the block\'s own cells are written; a user cell inside a spill\'s room makes the pane ask, and "no" keeps it', async () => {
+    const build = blockKind('review').prepare(fakeInputs());
+    const own = build(0, 0).cells.flatMap((row, i) => row.map((x, j) => (x === null ? '' : `${i},${j}`))).filter((k) => k !== '');
+    const first = mockExcel(0, 0, { '0,9': 'beside' });
+    await writeBlockAtSelection(build, neverAsked);
+    expect([...first.cellsWritten].sort()).toEqual(own.sort());
+    expect(first.grid.get('0,9')).toBe('beside');
+    const second = mockExcel(0, 0, { '12,5': 'inside the READBACK room' });
+    const asked: number[] = [];
+    await writeBlockAtSelection(build, async (_, count) => { asked.push(count); return false; });
+    expect(asked).toEqual([1]);
+    expect(second.writes).toEqual([]);
+    expect(second.grid.get('12,5')).toBe('inside the READBACK room');
   });
 });

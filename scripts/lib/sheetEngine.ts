@@ -7,6 +7,7 @@ import * as impl from '../../src/functions/impl';
 import { uncertainty } from '../../src/functions/uncertainty';
 import { readback } from '../../src/functions/readback';
 import { handcheck } from '../../src/functions/handcheck';
+import { phTemp } from '../../src/functions/phtemp';
 import { saltDose } from '../../src/functions/saltdose';
 import { toCellFailure } from '../../src/functions/outcome';
 import { stock } from '../../src/functions/stock';
@@ -35,6 +36,7 @@ export const PROTIC_FUNCTIONS: ProticFunction[] = [
   { name: 'PKA', fn: impl.pka as Impl, arity: [2, 5] },
   { name: 'RECIPE', fn: impl.recipe as Impl, arity: [5, 10], fallback: [2, 3] },
   { name: 'SALTDOSE', fn: saltDose as Impl, arity: [6, 9] },
+  { name: 'PHTEMP', fn: phTemp as Impl, arity: [4, 8] },
   { name: 'MOLARMASS', fn: impl.molarMass as Impl, arity: [1, 1] },
   { name: 'VERSION', fn: impl.version as Impl, arity: [0, 0] },
   { name: 'STOCK', fn: stock as Impl, arity: [4, 5] },

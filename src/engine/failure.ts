@@ -35,12 +35,13 @@ export type Failure =
   | (FailureFields & { code: 'missing_volume' })
   | (FailureFields & { code: 'out_of_range' })
   | (FailureFields & { code: 'unreachable_target'; reason: string; reachable?: ReachableRange })
+  | (FailureFields & { code: 'several_crossings'; quantity: string; crossings: number[]; crossingUnit: string })
   | (FailureFields & { code: 'no_convergence' });
 
 export type FailureCode = Failure['code'];
 
 /** Codes for a result that does not exist (`#N/A`); every other code is bad input (`#VALUE!`). */
-export const NOT_AVAILABLE_CODES: readonly FailureCode[] = ['unreachable_target'];
+export const NOT_AVAILABLE_CODES: readonly FailureCode[] = ['unreachable_target', 'several_crossings'];
 
 const HEADLINES: Record<FailureCode, string> = {
   unknown_reagent: 'unknown reagent',
@@ -56,6 +57,7 @@ const HEADLINES: Record<FailureCode, string> = {
   missing_volume: 'final volume needed',
   out_of_range: 'outside the range the data hold for',
   unreachable_target: 'target cannot be reached',
+  several_crossings: 'more than one answer',
   no_convergence: 'the equilibrium did not converge',
 };
 
@@ -67,12 +69,17 @@ function rangeText(r: ReachableRange): string {
   return r.low === r.high ? `${r.quantity} ${n(r.low)}${r.unit ?? ''} only` : `${r.quantity} ${n(r.low)} to ${n(r.high)}${r.unit ?? ''}`;
 }
 
+function crossingsText(at: number[], unit: string): string {
+  return at.map((x) => `${Number(x.toPrecision(5))}${unit}`).join(', ');
+}
+
 /** The one place a failure becomes the sentence a user reads. */
 export function describeFailure(failure: Failure): string {
   const where = failure.row === undefined ? failure.argument : `${failure.argument}, row ${failure.row}`;
   const detail =
     failure.code === 'bad_formula' || failure.code === 'bad_character' ? ` at character ${failure.position}` :
-    failure.code === 'unreachable_target' ? `: ${failure.reason}${failure.reachable ? `; reachable ${rangeText(failure.reachable)}` : ''}` : '';
+    failure.code === 'unreachable_target' ? `: ${failure.reason}${failure.reachable ? `; reachable ${rangeText(failure.reachable)}` : ''}` :
+    failure.code === 'several_crossings' ? `: the ${failure.quantity} crosses it ${failure.crossings.length} times, at ${crossingsText(failure.crossings, failure.crossingUnit)}` : '';
   return `${where}: ${HEADLINES[failure.code]}${detail}. Received ${failure.received}; expected ${failure.expected}.`;
 }
 

@@ -47,3 +47,5 @@ export { pHWithStepPKa, withStepPKa } from './alternative';
 export { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
 export { LADDER_EFFECTS, handLadder } from './handcheck';
 export type { HandLadder } from './handcheck';
+export { CROSSING_SCAN_STEP_C, temperatureForPH, temperatureRangeOf } from './temperatureCrossing';
+export type { PHCrossing } from './temperatureCrossing';

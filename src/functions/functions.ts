@@ -3,6 +3,7 @@ import { handcheck } from './handcheck';
 import * as impl from './impl';
 import { readback } from './readback';
 import { uncertainty } from './uncertainty';
+import { phTemp } from './phtemp';
 import { saltDose } from './saltdose';
 import { toCellFailure } from './outcome';
 import { stock } from './stock';
@@ -234,6 +235,24 @@ function SALTDOSE(targetIonicStrength: number, salt: string, reagents: any[][], 
 }
 
 /**
+ * Temperature at which the mixture's pH crosses a limit, checked by a forward solve there; #N/A with the pH range when it does not cross, or when it crosses more than once (each crossing named).
+ * @customfunction PHTEMP
+ * @helpurl https://localhost:3000/help.html#phtemp
+ * @param limitPH The pH limit (activity scale).
+ * @param reagents Reagents, one per row.
+ * @param amounts Amount of each reagent.
+ * @param units Unit of each amount: one cell or one per row.
+ * @param [volume] Final volume of the solution, L.
+ * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [fromC] Lowest temperature searched, °C (default: the lowest the mixture's data hold for).
+ * @param [toC] Highest temperature searched, °C (default: the highest the mixture's data hold for).
+ * @returns Temperature, °C.
+ */
+function PHTEMP(limitPH: number, reagents: any[][], amounts: any[][], units: any[][], volume?: any, model?: any, fromC?: any, toC?: any): number {
+  return run(() => phTemp(limitPH, reagents, amounts, units, volume, model, fromC, toC));
+}
+
+/**
  * Molar mass from the IUPAC standard atomic weights, g/mol.
  * @customfunction MOLARMASS
  * @helpurl https://localhost:3000/help.html#molarmass
@@ -340,4 +359,5 @@ export const EXCEL_FUNCTIONS = {
   UNCERTAINTY,
   STOCK,
   SALTDOSE,
+  PHTEMP,
 };

@@ -1,24 +1,46 @@
-import { MODEL_LIMIT_MOLAL, parseReagentSpec, systemFor, titrantUnit } from '../engine';
+import { ACTIVITY_MODELS, MODEL_LIMIT_MOLAL, parseReagentSpec, systemFor, titrantUnit } from '../engine';
+import { handcheck } from '../functions/handcheck';
 import * as impl from '../functions/impl';
+import { readback } from '../functions/readback';
+import { saltDose } from '../functions/saltdose';
+import { uncertainty } from '../functions/uncertainty';
 import {
   MAX_TABLE_ROWS, WHAT_IF_TEMPERATURES_C, curveBlock, fractionsBlock, fractionsRowCount, phBlock, recipeBlock, speciesBlock, temperatureTableBlock, titrantBlock,
 } from './blocks';
 import type { Block, MixtureInput } from './blocks';
 import { Refusal } from './refusal';
+import { reviewBlock } from './reviewBlock';
+import { saltBlock } from './saltBlock';
 
-// The blocks the pane writes, as one table: adding a block is one entry here, adding an activity model
-// one entry in MODEL_CHOICES. Each entry names the fields it needs (the pane shows only those) and checks
+// The blocks the pane writes, as one table: adding a block is one entry here; an activity model the engine
+// adds is offered at once (MODEL_CHOICES follows ACTIVITY_MODELS), named in MODEL_LABELS. Each entry names the fields it needs (the pane shows only those) and checks
 // its inputs with the very functions its cells will run before anything is written.
 
 /** Groups of fields in the pane's "Into the sheet" form. */
-export type FieldGroup = 'mixture' | 'model' | 'titrant' | 'curve-end' | 'points' | 'recipe' | 'fractions';
+export type FieldGroup = 'mixture' | 'model' | 'titrant' | 'curve-end' | 'points' | 'recipe' | 'fractions' | 'salt';
 
-/** Activity models the pane offers (ids as the functions take them, names as published). */
-export const MODEL_CHOICES: { id: string; label: string }[] = [
-  { id: 'davies', label: `Davies (to about ${MODEL_LIMIT_MOLAL.davies} mol/kg)` },
-  { id: 'bates-guggenheim', label: `Bates–Guggenheim (to about ${MODEL_LIMIT_MOLAL['bates-guggenheim']} mol/kg)` },
-  { id: 'ideal', label: 'Ideal (no activity correction)' },
-];
+/**
+ * Names of the activity models the engine knows, as published, each with its range (mol/kg) when it has one.
+ * Keyed by model id as the functions take it; a model the engine adds later is offered under its id until named here.
+ */
+export const MODEL_LABELS: Record<string, (limitMolal: number | undefined) => string> = {
+  davies: (limit) => `Davies (to about ${limit} mol/kg)`,
+  'bates-guggenheim': (limit) => `Bates–Guggenheim (to about ${limit} mol/kg)`,
+  sit: (limit) => `SIT, specific ion interaction (to about ${limit ?? 3} mol/kg)`,
+  ideal: () => 'Ideal (no activity correction)',
+};
+
+/** The choices for a list of engine model ids and their limits: every id offered, in order, named where MODEL_LABELS knows it. */
+export function modelChoices(models: readonly string[], limitsMolal: Record<string, number | undefined>): { id: string; label: string }[] {
+  return models.map((id) => {
+    const limit = limitsMolal[id];
+    const label = MODEL_LABELS[id];
+    return { id, label: label ? label(limit) : limit ? `${id} (to about ${limit} mol/kg)` : id };
+  });
+}
+
+/** Activity models the pane offers: every model the engine takes, in the engine's order (its default first). */
+export const MODEL_CHOICES: { id: string; label: string }[] = modelChoices(ACTIVITY_MODELS, MODEL_LIMIT_MOLAL);
 
 /** What a block reads from the pane; each reader refuses a blank or malformed box with its label. */
 export interface BlockInputs {
@@ -38,6 +60,9 @@ export interface BlockInputs {
   toPH(): number;
   stepPH(): number;
   systemId(): string;
+  /** the salt of the ionic-strength block: a solid such as NaCl, or a stock such as 4 M NaCl */
+  salt(): string;
+  targetIonicStrengthM(): number;
 }
 
 export type BlockBuilder = (top: number, left: number) => Block;
@@ -57,9 +82,9 @@ export function mixtureArgs(m: MixtureInput): [string[][], number[][], string[][
   return [m.rows.map((r) => [r.reagent]), m.rows.map((r) => [r.amount]), m.rows.map((r) => [r.unit]), m.volumeL, m.temperatureC, m.model];
 }
 
-/** The unit a titrant is dispensed in: mL for a stock solution, g for a solid (the functions' own default). */
-export function titrantUnitSymbol(titrant: string): string {
-  return titrantUnit(undefined, parseReagentSpec(titrant, 'titrant'), 'resultUnit').symbol;
+/** The unit a titrant (or a salt) is dispensed in: mL for a stock solution, g for a solid (the functions' own default). */
+export function titrantUnitSymbol(titrant: string, argument = 'titrant'): string {
+  return titrantUnit(undefined, parseReagentSpec(titrant, argument), 'resultUnit').symbol;
 }
 
 function wholeNumber(value: number, label: string, lo: number, hi: number): number {
@@ -137,6 +162,33 @@ export const BLOCK_KINDS: BlockKind[] = [
       const m = inputs.mixture();
       impl.ph(...mixtureArgs(m)); // at the pane's temperature; each row's own temperature is the user's to edit
       return (t, l) => temperatureTableBlock(m, WHAT_IF_TEMPERATURES_C, t, l);
+    },
+  },
+  {
+    id: 'salt', label: 'Salt for a target ionic strength', fields: ['mixture', 'model', 'salt'], showsMixtureWarning: true,
+    prepare(inputs) {
+      const m = inputs.mixture();
+      const [salt, targetM] = [inputs.salt(), inputs.targetIonicStrengthM()];
+      const unit = titrantUnitSymbol(salt, 'salt');
+      const [reagents, amounts, units, volumeL, temperatureC, model] = mixtureArgs(m);
+      const amount = saltDose(targetM, salt, reagents, amounts, units, volumeL, temperatureC, model, unit);
+      // the check cell, computed before writing: the rows with the salt in them, as IONICSTRENGTH reads them
+      impl.ionicStrength([...reagents, [salt]], [...amounts, [amount]], [...m.rows.map((r) => [r.unit]), [unit]], volumeL, temperatureC, model);
+      return (t, l) => saltBlock(m, { salt, targetIonicStrengthM: targetM, saltUnitSymbol: unit }, t, l);
+    },
+  },
+  {
+    id: 'review', label: 'Review: read-back, hand check, uncertainty', fields: ['mixture', 'model'], showsMixtureWarning: true,
+    prepare(inputs) {
+      const m = inputs.mixture();
+      const [reagents, amounts, units, volumeL, temperatureC, model] = mixtureArgs(m);
+      impl.ph(reagents, amounts, units, volumeL, temperatureC, model);
+      const spills = {
+        readback: readback(reagents, amounts, units, volumeL, temperatureC).length,
+        handcheck: handcheck(reagents, amounts, units, volumeL, temperatureC).length,
+        uncertainty: uncertainty(reagents, amounts, units, volumeL, temperatureC, model, m.rows.map(() => [0]), 0, 0).length,
+      };
+      return (t, l) => reviewBlock(m, spills, t, l);
     },
   },
 ];

@@ -1,4 +1,7 @@
+import { HANDCHECK_HEADER } from '../functions/handcheck';
 import { CONSTANTS_HEADER } from '../functions/impl';
+import { READBACK_HEADER } from '../functions/readback';
+import { UNCERTAINTY_HEADER } from '../functions/uncertainty';
 import { Refusal } from './refusal';
 
 // Labelled blocks the pane writes into the sheet at the selected cell: inputs in cells and a
@@ -25,7 +28,7 @@ export interface MixtureInput {
   model?: string;
 }
 
-type Shape = [rows: number, columns: number];
+export type Shape = [rows: number, columns: number];
 
 /**
  * Rows × columns each spilling function fills, as the blocks call it: one entry per function, and the
@@ -37,10 +40,13 @@ export const SPILL_SHAPES = {
   FRACTIONS: (formCount: number): Shape => [1, formCount],
   SPECIES: (tableRows: number): Shape => [tableRows, 5],
   CONSTANTS: (tableRows: number): Shape => [tableRows, CONSTANTS_HEADER.length],
+  READBACK: (tableRows: number): Shape => [tableRows, READBACK_HEADER.length],
+  HANDCHECK: (tableRows: number): Shape => [tableRows, HANDCHECK_HEADER.length],
+  UNCERTAINTY: (tableRows: number): Shape => [tableRows, UNCERTAINTY_HEADER.length],
 };
 
 /** The formula in the first cell of its spill, the rest of the spill left unwritten. */
-function spillRows(formula: string, [rows, columns]: Shape): (BlockCell | null)[][] {
+export function spillRows(formula: string, [rows, columns]: Shape): (BlockCell | null)[][] {
   return Array.from({ length: rows }, (_, i) => [i === 0 ? formula : null, ...Array(columns - 1).fill(null)]);
 }
 
@@ -56,12 +62,12 @@ export function address(row: number, col: number): string {
 }
 
 /** A text cell that Excel must not read as a formula or number. */
-function text(value: string): string {
+export function text(value: string): string {
   return /^[=+\-@]/.test(value) ? `'${value}` : value;
 }
 
 /** Rows made one width: the cells a row does not use are left unwritten (null), never blanked. */
-function pad(rows: (BlockCell | null)[][]): (BlockCell | null)[][] {
+export function pad(rows: (BlockCell | null)[][]): (BlockCell | null)[][] {
   const width = Math.max(...rows.map((r) => r.length));
   return rows.map((r) => [...r, ...Array(width - r.length).fill(null)]);
 }

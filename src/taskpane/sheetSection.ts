@@ -40,6 +40,8 @@ const inputs: BlockInputs = {
   toPH: () => num('to-ph'),
   stepPH: () => num('step-ph'),
   systemId: () => state.systemId,
+  salt: () => { const s = str('salt').trim(); if (s === '') throw new Refusal('Salt is blank: type a salt such as NaCl, or a stock such as 4 M NaCl.'); return s; },
+  targetIonicStrengthM: () => num('target-ionic-strength'),
 };
 
 /** A result with its mixture's model warning beside it, so no number in the pane is silent. */
@@ -185,6 +187,11 @@ export function sheetSection(): HTMLElement[] {
     el('div', { class: 'suggestion', 'data-group': 'mixture recipe' }, [el('p', { id: 'suggested-text', class: 'hint' }), suggest]),
     el('div', { 'data-group': 'mixture recipe' }, [field('volume', 'Final volume (L)', numberInput('1'))]),
     el('div', { 'data-group': 'model' }, [field('model', 'Activity model', model)]),
+    el('div', { 'data-group': 'salt' }, [
+      field('salt', 'Salt (a solid such as NaCl, or a stock such as 4 M NaCl)', textInput('NaCl')),
+      field('target-ionic-strength', 'Target ionic strength (mol/L)', numberInput('0.15')),
+      el('p', { class: 'hint' }, ['The salt is written as one more row; the volume above is the final volume, salt included.']),
+    ]),
     el('div', { 'data-group': 'titrant' }, [field('titrant', 'Titrant (a stock such as 1 M NaOH, or a solid)', titrant)]),
     el('div', { class: 'row', 'data-group': 'curve-end points' }, [
       field('max-amount', 'Curve ends at (mL of titrant)', numberInput('20'), { 'data-group': 'curve-end' }),
