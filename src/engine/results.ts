@@ -3,6 +3,7 @@ import type { Problem } from './problem';
 import { setActivity } from './problem';
 import type { Equilibrium, JointJacobian } from './solver';
 import { jointJacobian, lnGammaZ2For } from './solver';
+import { sitStrongOffsets } from './sit';
 import { fractionsAt } from './speciation';
 
 export interface SpeciesRow {
@@ -16,18 +17,22 @@ export interface SpeciesRow {
   systemId?: string;
 }
 
-function row(problem: Problem, species: string, charge: number, concentrationM: number, systemId?: string): SpeciesRow {
-  const gamma = Math.exp(problem.lnGammaZ2 * charge * charge);
+function row(problem: Problem, species: string, charge: number, concentrationM: number, systemId?: string, lnGammaOffset = 0): SpeciesRow {
+  const gamma = Math.exp(problem.lnGammaZ2 * charge * charge + lnGammaOffset);
   return { species, charge, concentrationM, activityCoefficient: gamma, activity: (gamma * concentrationM) / Math.exp(problem.lnWaterDensity), systemId };
 }
 
 /** Every species at the solution: H⁺, OH⁻, strong ions, then each form of each system. */
 export function speciesRows(eq: Equilibrium): SpeciesRow[] {
   const p = eq.problem;
-  const rows: SpeciesRow[] = [row(p, 'H⁺', 1, Math.exp(eq.lnH)), row(p, 'OH⁻', -1, Math.exp(p.lnKwc - eq.lnH))];
-  for (const ion of p.ions) rows.push(row(p, ionLabel(ion.id), ion.charge, ion.concentrationM));
+  // under sit: the offsets the solution was solved with (water ions, forms), and each strong ion's at the solution
+  const sit = p.sit;
+  const strong = sit ? sitStrongOffsets(p, eq.lnH) : undefined;
+  const rows: SpeciesRow[] = [row(p, 'H⁺', 1, Math.exp(eq.lnH), undefined, sit?.offset[0]), row(p, 'OH⁻', -1, Math.exp(p.lnKwc - eq.lnH), undefined, sit?.offset[1])];
+  p.ions.forEach((ion, k) => rows.push(row(p, ionLabel(ion.id), ion.charge, ion.concentrationM, undefined, strong?.[k])));
   p.systems.forEach((s, i) => {
-    fractionsAt(s.lnCumK, eq.lnH).forEach((alpha, j) => rows.push(row(p, s.system.forms[j] ?? `${s.system.name} form ${j}`, s.z0 - j, alpha * p.totalsM[i], s.system.id)));
+    fractionsAt(s.lnCumK, eq.lnH).forEach((alpha, j) => rows.push(row(p, s.system.forms[j] ?? `${s.system.name} form ${j}`, s.z0 - j, alpha * p.totalsM[i], s.system.id,
+      sit?.offset[sit.formStart[i] + j])));
   });
   return rows;
 }
