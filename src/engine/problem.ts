@@ -135,6 +135,8 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
     systems, totalsM: Float64Array.from(totals), ions, strongChargeM: 0, strongZ2M: 0, lnGammaZ2: 0, lnKwc: 0, evaluations: 0,
     stepOrder: stepOrderOf(systems),
     notes: contents.notes ?? [],
+    // always present, so every problem has one shape for the solver's hot loops
+    sit: undefined,
   };
   if (model === 'sit') problem.sit = prepareSit(problem);
   updateIonSums(problem);
@@ -168,7 +170,9 @@ export function setActivity(problem: Problem, lnGammaZ2: number): void {
   const lnRho = problem.lnWaterDensity;
   const sit = problem.sit;
   const offH = sit ? sit.offset[0] : 0;
-  problem.systems.forEach((s, i) => {
+  const systems = problem.systems;
+  for (let i = 0; i < systems.length; i++) {
+    const s = systems[i];
     let cum = 0;
     s.lnCumK[0] = 0;
     const start = sit ? sit.formStart[i] : -1;
@@ -180,6 +184,6 @@ export function setActivity(problem: Problem, lnGammaZ2: number): void {
       if (sit) cum += sit.offset[start + k - 1] - offH - sit.offset[start + k];
       s.lnCumK[k] = cum;
     }
-  });
+  }
   problem.lnKwc = problem.lnKw + 2 * lnRho - 2 * lnGammaZ2 + (sit ? sit.lnWaterActivity - offH - sit.offset[1] : 0);
 }

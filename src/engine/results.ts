@@ -95,7 +95,7 @@ function sitDeparture(eq: Equilibrium): { pH: number } | undefined {
 function sitSpeciesLabel(p: Problem, key: string): string {
   const slash = key.lastIndexOf('/');
   if (slash < 0) return ionLabel(key);
-  const s = p.systems.find((x) => x.system.id === key.slice(0, slash));
+  const s = p.systems.find((x) => x.system.id === key.slice(0, slash).replace(/\*$/, ''));
   const j = Number(key.slice(slash + 1));
   return s?.system.forms[j] ?? key;
 }

@@ -26,8 +26,12 @@ export interface SitState {
   nVariable: number;
   charges: Float64Array;
   keys: string[];
-  /** ln10·ε(a, b) over all species, row-major (nVariable + nIons)² */
-  lnEps: Float64Array;
+  /** the pairs with an ε, each once: species a, species b, ln10·ε */
+  pairA: Int32Array;
+  pairB: Int32Array;
+  pairLnEps: Float64Array;
+  /** 1/ρw, L/kg: molality per mol/L */
+  inverseRho: number;
   estimated: EstimatedPair[];
   /** ln γ offsets of the variable species in use */
   offset: Float64Array;
@@ -39,18 +43,16 @@ export interface SitState {
   all: Float64Array;
 }
 
-/** Builds the SIT state for a prepared problem (ε looked up once; concentrations are read at each refresh). */
-export function prepareSit(problem: Problem): SitState {
-  const keys = ['H+', 'OH-'], charges = [1, -1];
-  const formStart = new Int32Array(problem.systems.length);
-  problem.systems.forEach((s, i) => {
-    formStart[i] = keys.length;
-    for (let j = 0; j < s.lnCumK.length; j++) { keys.push(`${s.system.id}/${j}`); charges.push(s.z0 - j); }
-  });
-  const nVariable = keys.length;
-  for (const ion of problem.ions) { keys.push(ion.id); charges.push(ion.charge); }
+interface PairTable { pairA: Int32Array; pairB: Int32Array; pairLnEps: Float64Array; estimated: EstimatedPair[] }
+// the pair table depends only on which species a problem has (catalogue ε): one per species list
+const pairCache = new Map<string, PairTable>();
+
+function pairTable(keys: string[], charges: number[]): PairTable {
+  const cacheKey = keys.join('|');
+  const cached = pairCache.get(cacheKey);
+  if (cached) return cached;
   const n = keys.length;
-  const lnEps = new Float64Array(n * n);
+  const pairA: number[] = [], pairB: number[] = [], pairLnEps: number[] = [];
   const estimated: EstimatedPair[] = [];
   for (let a = 0; a < n; a++) {
     for (let b = 0; b < n; b++) {
@@ -60,11 +62,31 @@ export function prepareSit(problem: Problem): SitState {
       const row = sitEpsilonRow(keys[a], keys[b]);
       const epsilon = row ? row.epsilon : sitEstimate(charges[a], charges[b], keys[b]);
       if (!row) estimated.push({ cation: keys[a], anion: keys[b], epsilon, cationIndex: a, anionIndex: b });
-      lnEps[a * n + b] = lnEps[b * n + a] = Math.LN10 * epsilon;
+      if (epsilon !== 0) { pairA.push(a); pairB.push(b); pairLnEps.push(Math.LN10 * epsilon); }
     }
   }
+  const table = { pairA: Int32Array.from(pairA), pairB: Int32Array.from(pairB), pairLnEps: Float64Array.from(pairLnEps), estimated };
+  if (pairCache.size > 5000) pairCache.clear();
+  pairCache.set(cacheKey, table);
+  return table;
+}
+
+/** Builds the SIT state for a prepared problem (ε looked up once per species list; concentrations are read at each refresh). */
+export function prepareSit(problem: Problem): SitState {
+  const keys = ['H+', 'OH-'], charges = [1, -1];
+  const formStart = new Int32Array(problem.systems.length);
+  problem.systems.forEach((s, i) => {
+    formStart[i] = keys.length;
+    // a custom system's id may be reused with other data: its forms carry no published ε anyway
+    for (let j = 0; j < s.lnCumK.length; j++) { keys.push(`${s.system.id}${s.system.custom ? '*' : ''}/${j}`); charges.push(s.z0 - j); }
+  });
+  const nVariable = keys.length;
+  for (const ion of problem.ions) { keys.push(ion.id); charges.push(ion.charge); }
+  const n = keys.length;
+  const table = pairTable(keys, charges);
   return {
-    formStart, nVariable, charges: Float64Array.from(charges), keys, lnEps, estimated,
+    formStart, nVariable, charges: Float64Array.from(charges), keys, estimated: table.estimated,
+    pairA: table.pairA, pairB: table.pairB, pairLnEps: table.pairLnEps, inverseRho: Math.exp(-problem.lnWaterDensity),
     offset: new Float64Array(nVariable), lnWaterActivity: 0, next: new Float64Array(n), nextLnWaterActivity: 0,
     molal: new Float64Array(n), all: new Float64Array(n),
   };
@@ -78,7 +100,7 @@ function osmoticSigma(x: number): number {
 
 /** Molalities (mol/kg, m = c/ρw as the engine converts) of every species at ln h with the problem's current constants. */
 function fillMolalities(problem: Problem, sit: SitState, lnH: number): void {
-  const m = sit.molal, rho = Math.exp(problem.lnWaterDensity);
+  const m = sit.molal, rho = 1 / sit.inverseRho;
   m[0] = Math.exp(lnH) / rho;
   m[1] = Math.exp(problem.lnKwc - lnH) / rho;
   problem.systems.forEach((s, i) => {
@@ -95,19 +117,30 @@ function fillMolalities(problem: Problem, sit: SitState, lnH: number): void {
 /**
  * Computes, at ln h with the current constants, the offsets of every species (into `sit.all`) and ln aw;
  * the variable species' offsets go to `sit.next`. Returns how far they are from those in use (ln units).
+ * `atLastEvaluation`: ln h is the point of the last charge-balance evaluation, whose molalities of the
+ * water ions and forms chargeBalanceJacobian has left in `sit.molal` (saves their exponentials).
  */
-export function sitRefresh(problem: Problem, lnH: number): number {
+export function sitRefresh(problem: Problem, lnH: number, atLastEvaluation = false): number {
   const sit = problem.sit as SitState;
-  fillMolalities(problem, sit, lnH);
-  const m = sit.molal, n = sit.keys.length, eps = sit.lnEps;
+  const m = sit.molal, n = sit.keys.length, all = sit.all;
+  if (atLastEvaluation) {
+    const ions = problem.ions;
+    for (let k = 0; k < ions.length; k++) m[sit.nVariable + k] = ions[k].concentrationM * sit.inverseRho;
+  } else {
+    fillMolalities(problem, sit, lnH);
+  }
   let sumM = 0, z2m = 0, pairSum = 0;
   for (let a = 0; a < n; a++) {
-    let off = 0;
-    for (let b = 0; b < n; b++) { const e = eps[a * n + b]; if (e !== 0) off += e * m[b]; }
-    sit.all[a] = off;
+    all[a] = 0;
     sumM += m[a];
     z2m += sit.charges[a] * sit.charges[a] * m[a];
-    pairSum += m[a] * off;
+  }
+  const pa = sit.pairA, pb = sit.pairB, pe = sit.pairLnEps;
+  for (let k = 0; k < pe.length; k++) {
+    const a = pa[k], b = pb[k], e = pe[k];
+    all[a] += e * m[b];
+    all[b] += e * m[a];
+    pairSum += 2 * e * m[a] * m[b];
   }
   // SIT osmotic coefficient: Σm(1 − φ) = (2/3) ln10 A I^3/2 σ(b√I) − ln10 Σc Σa ε mc ma (the pair sum counts each pair twice)
   const ionic = z2m / 2, root = Math.sqrt(ionic);
@@ -129,19 +162,20 @@ export function sitRefresh(problem: Problem, lnH: number): number {
  */
 export function sitApply(problem: Problem, dfdy = 0): number {
   const sit = problem.sit as SitState;
-  const next = sit.next, off = sit.offset, m = sit.molal, rho = Math.exp(problem.lnWaterDensity);
+  const next = sit.next, off = sit.offset, m = sit.molal, rho = 1 / sit.inverseRho;
   const dH = next[0] - off[0];
   // f = h − oh + Σ c (z0 − ⟨j⟩) + strong; ∂f/∂lnKwc = −oh, ∂⟨j⟩/∂lnCumK[j] = α_j (j − ⟨j⟩)
   let df = -m[1] * rho * (sit.nextLnWaterActivity - sit.lnWaterActivity - dH - (next[1] - off[1]));
-  problem.systems.forEach((s, i) => {
-    const start = sit.formStart[i], n = s.lnCumK.length, c = problem.totalsM[i];
-    if (!(c > 0)) return;
+  const systems = problem.systems;
+  for (let i = 0; i < systems.length; i++) {
+    const start = sit.formStart[i], n = systems[i].lnCumK.length, c = problem.totalsM[i];
+    if (!(c > 0)) continue;
     let mean = 0;
     for (let j = 0; j < n; j++) mean += j * m[start + j];
     mean /= c / rho;
     const d0 = next[start] - off[start];
     for (let j = 1; j < n; j++) df -= m[start + j] * rho * (j - mean) * (d0 - j * dH - (next[start + j] - off[start + j]));
-  });
+  }
   for (let a = 0; a < sit.nVariable; a++) off[a] = next[a];
   sit.lnWaterActivity = sit.nextLnWaterActivity;
   const shift = dfdy > 0 ? -df / dfdy : -dH;

@@ -161,7 +161,7 @@ function solveJoint(problem: Problem, yStart: number | undefined): { y: number; 
   let L = lnGammaZ2For(problem, startingIonicStrength(problem));
   let y = yStart ?? startingLnH(problem, L);
   // first offsets from the starting guess (no shift: the guess is no root to move)
-  if (problem.sit) { setActivity(problem, L); sitRefresh(problem, y); sitApply(problem); }
+  // (no first refresh: the offsets in use, from a previous solve of this problem or zero, serve until the first evaluation)
   for (let iter = 0; iter < 40; iter++) {
     jointJacobian(problem, y, L, joint);
     const { f, F2, j11, j12, j21, j22 } = joint;
@@ -173,9 +173,9 @@ function solveJoint(problem: Problem, yStart: number | undefined): { y: number; 
     // quadratic convergence: a step this small means this point is already the root to about
     // 1e-12 in ln h, and the values in `joint` are this point's own, so no further evaluation
     const converged = (Math.abs(f) <= 1e-15 * joint.scale && Math.abs(F2) <= LN_GAMMA_TOLERANCE) || (Math.abs(dy) < 1e-11 && Math.abs(dL) < 1e-12);
+    // the specific-ion offsets follow the speciation, lagged one step; a root counts only once they have settled
     if (problem.sit) {
-      // the specific-ion offsets follow the speciation, lagged one step; a root counts only once they have settled
-      const moved = sitRefresh(problem, y);
+      const moved = sitRefresh(problem, y, true);
       if (converged && moved <= SIT_TOLERANCE) return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM };
       // the Newton step below is still taken: it is this point's own, and the new offsets' shift is added to it
       y += sitApply(problem, j11);

@@ -40,7 +40,7 @@ export function iterateActivity(target: TargetProblem, targetPH: number, solveLi
     chargeBalance(p, at.lnH, scratch);
     const residual = lnGammaZ2For(p, scratch.ionicStrengthM) - lnGamma;
     // under sit the specific-ion offsets at the target settle in the same loop (they follow the amounts and the speciation)
-    const moved = p.sit ? sitRefresh(p, at.lnH) : 0;
+    const moved = p.sit ? sitRefresh(p, at.lnH, true) : 0;
     if (Math.abs(residual) <= LN_GAMMA_TOLERANCE && moved <= LN_GAMMA_TOLERANCE) return solved;
     if (p.sit) sitApply(p);
     previous = lnGamma;
