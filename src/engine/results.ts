@@ -176,7 +176,7 @@ export function modelWarning(eq: Equilibrium): string {
   const departure = p.model === 'davies' || p.model === 'bates-guggenheim' ? sitDeparture(eq) : undefined;
   if (departure !== undefined) {
     if (Math.abs(departure.pH - eq.pH) > SIT_DEPARTURE_PH) {
-      warnings.push(`the ${MODEL_DISPLAY_NAMES[p.model]} pH departs from the sit model's (${departure.pH.toFixed(3)}) by ${Math.abs(departure.pH - eq.pH).toFixed(3)} at ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L: treat it as an estimate, or use model sit (to about 3 mol/kg)`);
+      warnings.push(`the ${MODEL_DISPLAY_NAMES[p.model]} pH departs from the sit model's (${departure.pH.toFixed(3)}) by ${Math.abs(departure.pH - eq.pH).toFixed(3)} at ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L: treat it as an estimate, or use model sit`);
     }
   } else if (p.model !== 'ideal' && ionicMolal > limit) {
     warnings.push(`ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L is above the ${MODEL_DISPLAY_NAMES[p.model] ?? p.model} model's range (about ${Number((limit * rhoW).toPrecision(3))} mol/L here): treat the pH as an estimate`);
