@@ -17,6 +17,7 @@ import { qaBench } from './bench/qa';
 import { inverseBench } from './bench/inverse';
 import { cellsBench } from './bench/cells';
 import { nameLookupBench } from './bench/names';
+import { sitBench } from './bench/sit';
 
 const MIXTURES: Record<string, MixtureRow[]> = {
   'one-system buffer (phosphate)': [
@@ -151,6 +152,7 @@ async function main(): Promise<void> {
   const inverse = inverseBench();
   const cells = cellsBench();
   const names = nameLookupBench();
+  const sit = sitBench();
   const meanEvaluations = Object.values(engine).reduce((s, e) => s + e.evaluationsPerSolve, 0) / Object.keys(engine).length;
   const results = {
     date: new Date().toISOString(),
@@ -167,6 +169,7 @@ async function main(): Promise<void> {
     inverse: inverse.results,
     cells: cells.results,
     nameLookup: names.figures,
+    sit: sit.results,
     targets: {
       evaluationsPerSolveAtMost6: meanEvaluations <= 6,
       solveWithin10Evaluations: Object.values(engine).every((e) => e.solveOverEvaluation <= 10),
@@ -178,6 +181,8 @@ async function main(): Promise<void> {
       xlsxVerifyAtLeast2000CellsPerSecond: xlsx.results.cellsPerSecond >= 2000,
       ...qa.targets,
       titrantWithin15xOfOneSolve: inverse.results.titrantWithin15x,
+      sitWithin2xOfDavies: sit.results.sitWithin2x,
+      sitEvaluationsPerSolveAtMost6: sit.results.sitEvaluationsAtMost6,
     },
   };
   const lines = [
@@ -208,6 +213,8 @@ async function main(): Promise<void> {
     ...cells.lines,
     '',
     ...names.lines,
+    '',
+    ...sit.lines,
     '',
     `targets met: ${Object.entries(results.targets).map(([k, v]) => `${k} ${v ? 'yes' : 'NO'}`).join(', ')}`,
   ];

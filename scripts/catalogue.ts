@@ -1,6 +1,6 @@
-// npm run catalogue [-- reagents]: the catalogue as CSV with the source of every value, for a reviewer
+// npm run catalogue [-- reagents | sit]: the catalogue as CSV with the source of every value, for a reviewer
 // to check constants against the literature or file with a validation record.
-import { ACID_SYSTEMS, CATALOGUE_VERSION, REAGENTS, levelLabel } from '../src/catalogue';
+import { ACID_SYSTEMS, CATALOGUE_VERSION, REAGENTS, SIT_EPSILON, SIT_ESTIMATE_SOURCE, levelLabel } from '../src/catalogue';
 import { dpKaPerK, molarMassOfReagent } from '../src/engine';
 import { csvField } from './lib/csv';
 
@@ -37,4 +37,15 @@ export function reagentsCsv(): string {
   return rows.join('\n') + '\n';
 }
 
-if (require.main === module) process.stdout.write(process.argv[2] === 'reagents' ? reagentsCsv() : systemsCsv());
+/** The sit model's ε table: one row per published pair with its uncertainty and source, then the estimate rule. */
+export function sitEpsilonCsv(): string {
+  const rows = [line(['catalogue', 'cation', 'anion', 'ε at 25 °C (kg/mol)', '± (kg/mol)', 'source'])];
+  for (const r of SIT_EPSILON) rows.push(line([CATALOGUE_VERSION, r.cation, r.anion, r.epsilon, r.uncertainty, r.source]));
+  rows.push(line([CATALOGUE_VERSION, 'any other pair', '', '', '', SIT_ESTIMATE_SOURCE]));
+  return rows.join('\n') + '\n';
+}
+
+if (require.main === module) {
+  const which = process.argv[2];
+  process.stdout.write(which === 'reagents' ? reagentsCsv() : which === 'sit' ? sitEpsilonCsv() : systemsCsv());
+}

@@ -202,7 +202,7 @@ describe('PKA and FRACTIONS take the model a mixture uses', () => {
 
   test('a model that is not one is refused with the choices', () => {
     const v = evaluateSheet([['=PROTIC.PKA("phosphate",2,25,0.1,"debye")'], ['=PROTIC.FRACTIONS("phosphate",7,25,0.1,"debye")']]);
-    for (const row of v) expect(row[0]).toMatchObject({ error: '#VALUE!', message: expect.stringMatching(/^model: .*davies, bates-guggenheim or ideal/) });
+    for (const row of v) expect(row[0]).toMatchObject({ error: '#VALUE!', message: expect.stringMatching(/^model: .*davies, bates-guggenheim, sit or ideal/) });
   });
 });
 
@@ -233,7 +233,7 @@ describe('CURVE carries a check text per point', () => {
       expect(Math.abs(pH - (row[4][0] as number))).toBeLessThan(1e-9);
     }
     expect(points[0][2]).toBe('');
-    expect(points[4][2]).toMatch(/ionic strength .* mol\/L is above the Davies model's range/);
+    expect(points[4][2]).toMatch(/the Davies pH departs from the sit model's .* at ionic strength .* mol\/L/);
   });
 });
 

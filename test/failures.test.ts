@@ -28,7 +28,7 @@ const CASES: [FailureCode, () => unknown, RegExp, string][] = [
   ['bad_character', () => impl.ph([['\u0422ris base']], [[1]], 'g', 1),
     /reagents, row 1: a character that is not plain text at character 1\. Received "\u0422ris base"; expected .*U\+0422 CYRILLIC CAPITAL LETTER TE, which looks like Latin T/, '#VALUE!'],
   ['bad_unit', () => impl.ph([P], [G], 'gallons', 1), /units, row 1: unit not allowed here\. Received "gallons"; expected one of g mg kg µg/, '#VALUE!'],
-  ['bad_model', () => impl.ph([P], [G], 'g', 1, 25, 'pitzer'), /model: unknown activity model\. Received "pitzer"; expected davies, bates-guggenheim or ideal/, '#VALUE!'],
+  ['bad_model', () => impl.ph([P], [G], 'g', 1, 25, 'pitzer'), /model: unknown activity model\. Received "pitzer"; expected davies, bates-guggenheim, sit or ideal/, '#VALUE!'],
   ['bad_amount', () => impl.ph([P], [[3.4, -1]], 'g', 1), /amounts, row 2: amount not usable\. Received -1; expected a number zero or above/, '#VALUE!'],
   ['bad_argument', () => impl.curve([P], [G], 'g', 1, '1 M NaOH', 10, 2.5), /points: .*expected a whole number of points from 2 to 1001/, '#VALUE!'],
   ['shape_mismatch', () => impl.ph([P], [[1, 2, 3]], 'g', 1), /amounts: ranges of different shapes\. Received a 1×3 range; expected the same shape as reagents \(1×2\)/, '#VALUE!'],

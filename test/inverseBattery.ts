@@ -152,12 +152,12 @@ function saltCase(r: Rand, models: readonly string[]): Case {
   };
 }
 
-export interface BatteryOptions { seed: number; counts: Partial<Record<Kind, number>>; finalVolume: boolean }
+export interface BatteryOptions { seed: number; counts: Partial<Record<Kind, number>>; finalVolume: boolean; /** default: every model the engine has */ models?: readonly string[] }
 
 /** Draws the battery's problems; the same seed and counts always give the same problems. */
 export function drawCases(options: BatteryOptions): Case[] {
   const r = seeded(options.seed);
-  const models = ACTIVITY_MODELS;
+  const models = options.models ?? ACTIVITY_MODELS;
   const out: Case[] = [];
   for (let i = 0; i < (options.counts.titrant ?? 0); i++) out.push(titrantCase(r, models, options.finalVolume));
   for (let i = 0; i < (options.counts.recipe ?? 0); i++) out.push(recipeCase(r, models));

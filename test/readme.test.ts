@@ -31,6 +31,7 @@ const NUMERIC: [string, string, (v: SheetValue[][]) => SheetValue[]][] = [
   ['=PROTIC.PKA("Tris",1,37)', '7.7527', (v) => [v[0][0]]],
   ['=PROTIC.PKA("phosphate",2,25,0.15)', '6.8389', (v) => [v[0][0]]],
   ['=PROTIC.PKA("phosphate",2,25,0.15,"bates-guggenheim")', '6.8222', (v) => [v[0][0]]],
+  ['=PROTIC.PKA("phosphate",2,25,1,"sit")', '6.5145', (v) => [v[0][0]]],
   ['=PROTIC.FRACTIONS("phosphate",7.2,25,0.1,"bates-guggenheim")', '2.19e-6, 0.31817, 0.68181, 1.71e-5', (v) => v[0].slice(0, 4)],
   ['=PROTIC.MOLARMASS("Na2HPO4·7H2O")', '268.06', (v) => [v[0][0]]],
   ['=PROTIC.PHMIX("1 M Tris-HCl pH 8.0",50,"mL",1)', '7.9413', (v) => [v[0][0]]],

@@ -13,3 +13,5 @@ export const REAGENTS: readonly Reagent[] = [...CORE_REAGENTS, ...AMINO_ACID_REA
 export const AMBIGUOUS_NAMES: readonly { name: string; choices: string[] }[] = [...CORE_AMBIGUOUS_NAMES, ...AMINO_ACID_AMBIGUOUS_NAMES, ...EXCIPIENT_AMBIGUOUS_NAMES];
 export { STRONG_IONS, strongIonById } from './ions';
 export { ADDIN_VERSION, CATALOGUE_VERSION } from './version';
+export { SIT_EPSILON, SIT_EPSILON_BAND_C, SIT_ESTIMATE_SOURCE, SIT_ESTIMATE_UNCERTAINTY, sitEpsilonRow, sitEstimate } from './sitEpsilon';
+export type { SitEpsilonRow } from './sitEpsilon';

@@ -2,23 +2,27 @@ import type { AcidSystem } from '../catalogue';
 import { lnGammaPerZ2 } from './activity';
 import type { ActivityModel } from './activity';
 import { lnKaAt } from './problem';
+import { naclMediumOffset } from './sit';
 import { fractionsAt } from './speciation';
 import { debyeHuckelA, waterDensityKgPerL } from './water';
 
 // Constants at a stated ionic strength (mol/L) under an activity model (default Davies), as FRACTIONS,
 // PKA and the pane's system view quote them: pKa' = pH − log10([A]/[HA]) = pKa + log10 γ(A) − log10 γ(HA).
 // The model sees I/ρw (mol/kg), as a mixture's solve does, so PKA at a mixture's IONICSTRENGTH and model
-// is the apparent value its CONSTANTS prints.
+// is the apparent value its CONSTANTS prints. Under `sit` a stated ionic strength is read as a NaCl medium of
+// that molality (common practice for apparent constants), the forms' ε being those with Na⁺ or Cl⁻.
 
 /**
  * Apparent pKa of each step (first proton lost first) at a temperature (°C) and ionic strength (mol/L).
  * @example apparentPKas(phosphate, 25, 0.1, 'bates-guggenheim')[1] // ≈ 6.78
  */
 export function apparentPKas(system: AcidSystem, temperatureC: number, ionicStrengthM: number, model: ActivityModel = 'davies'): number[] {
-  const lnG = lnGammaPerZ2(model, ionicStrengthM / waterDensityKgPerL(temperatureC), debyeHuckelA(temperatureC));
+  const molal = ionicStrengthM / waterDensityKgPerL(temperatureC);
+  const lnG = lnGammaPerZ2(model, molal, debyeHuckelA(temperatureC));
+  const offset = (j: number): number => (model === 'sit' ? naclMediumOffset(`${system.id}/${j}`, system.chargeMostProtonated - j, molal) : 0);
   return Array.from(lnKaAt(system, temperatureC), (lnKa, i) => {
     const zAcid = system.chargeMostProtonated - i, zBase = zAcid - 1;
-    return (-lnKa + lnG * (zBase * zBase - zAcid * zAcid)) / Math.LN10;
+    return (-lnKa + lnG * (zBase * zBase - zAcid * zAcid) + offset(i + 1) - offset(i)) / Math.LN10;
   });
 }
 

@@ -52,20 +52,31 @@ export function chargeBalanceJacobian(problem: Problem, y: number, out: Jacobian
   let scale = h + oh;
   for (const ion of problem.ions) scale += Math.abs(ion.charge) * ion.concentrationM;
   const systems = problem.systems;
+  const sit = problem.sit;
+  if (sit) { sit.molal[0] = h * sit.inverseRho; sit.molal[1] = oh * sit.inverseRho; }
   for (let i = 0; i < systems.length; i++) {
     const s = systems[i];
     const c = problem.totalsM[i];
-    if (c === 0) continue;
+    if (c === 0) {
+      if (sit) sit.molal.fill(0, sit.formStart[i], sit.formStart[i] + s.lnCumK.length);
+      continue;
+    }
     const cum = s.lnCumK, slope = s.lnCumKSlope, n = cum.length - 1;
     let maxLog = -Infinity;
     for (let j = 0; j <= n; j++) { const u = cum[j] - j * y; if (u > maxLog) maxLog = u; }
     let w0 = 0, mj = 0, mjj = 0, mc = 0, mjc = 0, mz = 0, mjz = 0, mcz = 0;
     for (let j = 0; j <= n; j++) {
       const w = Math.exp(cum[j] - j * y - maxLog);
+      if (sit) sit.molal[sit.formStart[i] + j] = w;
       const zj = s.z0 - j, zz = zj * zj, cj = slope[j];
       w0 += w; mj += w * j; mjj += w * j * j; mc += w * cj; mjc += w * j * cj; mz += w * zz; mjz += w * j * zz; mcz += w * cj * zz;
     }
     mj /= w0; mjj /= w0; mc /= w0; mjc /= w0; mz /= w0; mjz /= w0; mcz /= w0;
+    // under sit, the forms' molalities at this point, for the specific-ion refresh that follows (sit.ts)
+    if (sit) {
+      const start = sit.formStart[i], k = (c * sit.inverseRho) / w0;
+      for (let j = 0; j <= n; j++) sit.molal[start + j] *= k;
+    }
     const varJ = Math.max(0, mjj - mj * mj);
     f += c * (s.z0 - mj);
     dfdy += c * varJ;

@@ -4,6 +4,8 @@ import { fail } from './failure';
 import type { ActivityModel } from './activity';
 import type { Contents } from './mixture';
 import { systemFor } from './registry';
+import { prepareSit } from './sit';
+import type { SitState } from './sit';
 import { pKaAt } from './temperature';
 import { checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL } from './water';
 
@@ -48,6 +50,8 @@ export interface Problem {
   stepOrder: Int32Array;
   /** warnings the contents carried in (made solutions), shown with the model's own */
   notes: readonly string[];
+  /** the specific-ion offsets and water activity under `sit` (sit.ts); undefined for the other models */
+  sit?: SitState;
 }
 
 interface TemperatureConstants {
@@ -131,7 +135,10 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
     systems, totalsM: Float64Array.from(totals), ions, strongChargeM: 0, strongZ2M: 0, lnGammaZ2: 0, lnKwc: 0, evaluations: 0,
     stepOrder: stepOrderOf(systems),
     notes: contents.notes ?? [],
+    // always present, so every problem has one shape for the solver's hot loops
+    sit: undefined,
   };
+  if (model === 'sit') problem.sit = prepareSit(problem);
   updateIonSums(problem);
   setActivity(problem, 0);
   return problem;
@@ -154,19 +161,29 @@ export function updateIonSums(problem: Problem): void {
   problem.strongZ2M = z2;
 }
 
-/** Sets the conditional constants for ln γ = z² · lnGammaZ2 (molal constants, m = c/ρw). */
+/**
+ * Sets the conditional constants for ln γ = z² · lnGammaZ2 (molal constants, m = c/ρw); under `sit` each
+ * species' ln γ also carries its offset ln10·Σ ε m and Kw the water activity (Kw = aH·aOH/aw).
+ */
 export function setActivity(problem: Problem, lnGammaZ2: number): void {
   problem.lnGammaZ2 = lnGammaZ2;
   const lnRho = problem.lnWaterDensity;
-  for (const s of problem.systems) {
+  const sit = problem.sit;
+  const offH = sit ? sit.offset[0] : 0;
+  const systems = problem.systems;
+  for (let i = 0; i < systems.length; i++) {
+    const s = systems[i];
     let cum = 0;
     s.lnCumK[0] = 0;
+    const start = sit ? sit.formStart[i] : -1;
     for (let k = 1; k < s.lnCumK.length; k++) {
       const zBefore = s.z0 - (k - 1);
       const zAfter = s.z0 - k;
       cum += s.lnKa[k - 1] + lnRho + lnGammaZ2 * (zBefore * zBefore - 1 - zAfter * zAfter);
+      // ln γ(acid) − ln γ(H⁺) − ln γ(base), the offsets' share
+      if (sit) cum += sit.offset[start + k - 1] - offH - sit.offset[start + k];
       s.lnCumK[k] = cum;
     }
   }
-  problem.lnKwc = problem.lnKw + 2 * lnRho - 2 * lnGammaZ2;
+  problem.lnKwc = problem.lnKw + 2 * lnRho - 2 * lnGammaZ2 + (sit ? sit.lnWaterActivity - offH - sit.offset[1] : 0);
 }

@@ -1,8 +1,11 @@
-import { MODEL_LIMIT_MOLAL } from './activity';
+import { SIT_EPSILON_BAND_C, SIT_ESTIMATE_UNCERTAINTY } from '../catalogue';
+import { MODEL_LIMIT_MOLAL, ionicStrengthFactor } from './activity';
+import { ProticError } from './failure';
 import type { Problem } from './problem';
 import { setActivity } from './problem';
 import type { Equilibrium, JointJacobian } from './solver';
-import { jointJacobian, lnGammaZ2For } from './solver';
+import { jointJacobian, lnGammaZ2For, solve } from './solver';
+import { prepareSit, sitEstimatesInUse, sitRestore, sitSnapshot, sitStrongOffsets } from './sit';
 import { fractionsAt } from './speciation';
 
 export interface SpeciesRow {
@@ -16,18 +19,22 @@ export interface SpeciesRow {
   systemId?: string;
 }
 
-function row(problem: Problem, species: string, charge: number, concentrationM: number, systemId?: string): SpeciesRow {
-  const gamma = Math.exp(problem.lnGammaZ2 * charge * charge);
+function row(problem: Problem, species: string, charge: number, concentrationM: number, systemId?: string, lnGammaOffset = 0): SpeciesRow {
+  const gamma = Math.exp(problem.lnGammaZ2 * charge * charge + lnGammaOffset);
   return { species, charge, concentrationM, activityCoefficient: gamma, activity: (gamma * concentrationM) / Math.exp(problem.lnWaterDensity), systemId };
 }
 
 /** Every species at the solution: H⁺, OH⁻, strong ions, then each form of each system. */
 export function speciesRows(eq: Equilibrium): SpeciesRow[] {
   const p = eq.problem;
-  const rows: SpeciesRow[] = [row(p, 'H⁺', 1, Math.exp(eq.lnH)), row(p, 'OH⁻', -1, Math.exp(p.lnKwc - eq.lnH))];
-  for (const ion of p.ions) rows.push(row(p, ionLabel(ion.id), ion.charge, ion.concentrationM));
+  // under sit: the offsets the solution was solved with (water ions, forms), and each strong ion's at the solution
+  const sit = p.sit;
+  const strong = sit ? sitStrongOffsets(p, eq.lnH) : undefined;
+  const rows: SpeciesRow[] = [row(p, 'H⁺', 1, Math.exp(eq.lnH), undefined, sit?.offset[0]), row(p, 'OH⁻', -1, Math.exp(p.lnKwc - eq.lnH), undefined, sit?.offset[1])];
+  p.ions.forEach((ion, k) => rows.push(row(p, ionLabel(ion.id), ion.charge, ion.concentrationM, undefined, strong?.[k])));
   p.systems.forEach((s, i) => {
-    fractionsAt(s.lnCumK, eq.lnH).forEach((alpha, j) => rows.push(row(p, s.system.forms[j] ?? `${s.system.name} form ${j}`, s.z0 - j, alpha * p.totalsM[i], s.system.id)));
+    fractionsAt(s.lnCumK, eq.lnH).forEach((alpha, j) => rows.push(row(p, s.system.forms[j] ?? `${s.system.name} form ${j}`, s.z0 - j, alpha * p.totalsM[i], s.system.id,
+      sit?.offset[sit.formStart[i] + j])));
   });
   return rows;
 }
@@ -43,7 +50,71 @@ function supDigits(digits: string): string {
 }
 
 /** Activity models as they are published (Davies 1938; Bates and Guggenheim 1960), for warning prose. */
-const MODEL_DISPLAY_NAMES: Record<string, string> = { davies: 'Davies', 'bates-guggenheim': 'Bates–Guggenheim', ideal: 'ideal' };
+const MODEL_DISPLAY_NAMES: Record<string, string> = { davies: 'Davies', 'bates-guggenheim': 'Bates–Guggenheim', ideal: 'ideal', sit: 'sit' };
+
+/** A Davies or Bates–Guggenheim pH is flagged when it departs from the sit pH of the same mixture by more than this. */
+export const SIT_DEPARTURE_PH = 0.02;
+/** Largest |ε| the sit model can use, kg/mol: 0.33 (Mg²⁺, ClO4⁻) in the table, 0.4 from the ClO4⁻ estimate rule at z = 2. */
+const SIT_EPSILON_MAX = 0.4;
+
+/**
+ * An upper bound on |pH(model) − pH(sit)| from the ionic strength alone (mol/kg): the D terms differ by
+ * A·|F(I) − D(I)| per z², which moves an acid–base pair's log(γA/γHA) by at most |1 − 2 z(acid)| times that
+ * (1 for the water ions); each of the two species' Σ ε m is at most ε_max·2I; ln aw moves pKw by at most
+ * 0.02·I (φ ≤ 1.1, Σm ≤ 2I). Below 0.02 the sit solve is skipped: it cannot flag anything.
+ */
+function departureBound(p: Problem, ionicMolal: number): number {
+  let factor = 1;
+  for (const s of p.systems) for (let k = 0; k < s.lnKa.length; k++) factor = Math.max(factor, Math.abs(1 - 2 * (s.z0 - k)));
+  const dF = Math.abs(ionicStrengthFactor(p.model, ionicMolal) - ionicStrengthFactor('sit', ionicMolal));
+  return p.debyeHuckelA * factor * dF + 2 * SIT_EPSILON_MAX * 2 * ionicMolal + 0.02 * ionicMolal;
+}
+
+/**
+ * The same mixture solved under sit, for the departure warning; undefined when the bound says it cannot
+ * matter, when the ionic strength is beyond sit's own range, or when the sit solve itself is refused.
+ */
+function sitDeparture(eq: Equilibrium): { pH: number } | undefined {
+  const p = eq.problem;
+  const ionicMolal = eq.ionicStrengthM / Math.exp(p.lnWaterDensity);
+  if (ionicMolal > MODEL_LIMIT_MOLAL.sit || departureBound(p, ionicMolal) < SIT_DEPARTURE_PH) return undefined;
+  const q: Problem = {
+    ...p, model: 'sit', systems: p.systems.map((s) => ({ ...s, lnCumK: new Float64Array(s.lnCumK.length) })), totalsM: Float64Array.from(p.totalsM),
+    ions: p.ions.map((ion) => ({ ...ion })), evaluations: 0, sit: undefined,
+  };
+  q.sit = prepareSit(q);
+  try {
+    return { pH: solve(q, eq.lnH).pH };
+  } catch (e) {
+    if (e instanceof ProticError) return undefined;
+    throw e;
+  }
+}
+
+/** A sit species key (`Na+`, `H+`, `phosphate/2`) as it is printed. */
+function sitSpeciesLabel(p: Problem, key: string): string {
+  const slash = key.lastIndexOf('/');
+  if (slash < 0) return ionLabel(key);
+  const s = p.systems.find((x) => x.system.id === key.slice(0, slash).replace(/\*$/, ''));
+  const j = Number(key.slice(slash + 1));
+  return s?.system.forms[j] ?? key;
+}
+
+/** sit's own warnings: the charge-type ε estimates that matter here, and the 25 °C ε used away from 25 °C. */
+function sitWarnings(eq: Equilibrium): string[] {
+  const p = eq.problem;
+  const out: string[] = [];
+  const pairs = sitEstimatesInUse(p, eq.lnH);
+  if (pairs.length > 0) {
+    const named = pairs.map((x) => `${sitSpeciesLabel(p, x.cation)}–${sitSpeciesLabel(p, x.anion)} ${x.epsilon >= 0 ? '' : '−'}${Math.abs(x.epsilon).toFixed(2)}`);
+    out.push(`sit: no published ε for ${named.join(', ')} kg/mol: charge-type estimates (Hummel 2009 rules, ± ${SIT_ESTIMATE_UNCERTAINTY}) are used`);
+  }
+  const [lo, hi] = SIT_EPSILON_BAND_C;
+  if ((p.temperatureC < lo || p.temperatureC > hi) && eq.ionicStrengthM / Math.exp(p.lnWaterDensity) > 0.05) {
+    out.push(`sit: the ε are 25 °C values (no temperature dependence is represented) used at ${p.temperatureC} °C: treat the pH as an estimate`);
+  }
+  return out;
+}
 
 const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scale: 0, ionicStrengthM: 0 };
 
@@ -54,6 +125,7 @@ const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scal
  */
 export function bufferCapacity(eq: Equilibrium): number {
   const p = eq.problem;
+  if (p.sit) return sitBufferCapacity(eq);
   // jointJacobian sets the problem's conditional constants; put back the solution's own, so a result
   // read from this equilibrium afterwards (SPECIES, CONSTANTS) does not depend on whether β came first
   const solvedLnGammaZ2 = p.lnGammaZ2;
@@ -64,6 +136,29 @@ export function bufferCapacity(eq: Equilibrium): number {
   const dy = -joint.j22 / det;
   const dL = joint.j21 / det;
   return -Math.LN10 / (dy + dL);
+}
+
+/**
+ * β under sit: the specific-ion offsets follow the speciation, which the implicit derivatives above hold
+ * fixed, so β is the central difference of two full solves with ± δ mol/L of strong-base charge (no
+ * counter-ion, as above); δ = 1e-5 of the charge scale, which leaves a truncation error near 1e-10 relative.
+ * The problem is put back as the solution left it.
+ */
+function sitBufferCapacity(eq: Equilibrium): number {
+  const p = eq.problem;
+  const saved = sitSnapshot(p), savedL = p.lnGammaZ2, charge = p.strongChargeM;
+  const delta = 1e-5 * Math.max(eq.ionicStrengthM, Math.exp(eq.lnH), Math.exp(p.lnKwc - eq.lnH), 1e-12);
+  try {
+    p.strongChargeM = charge + delta;
+    const up = solve(p, eq.lnH).pH;
+    p.strongChargeM = charge - delta;
+    const down = solve(p, eq.lnH).pH;
+    return (2 * delta) / (up - down);
+  } finally {
+    p.strongChargeM = charge;
+    sitRestore(p, saved);
+    setActivity(p, savedL);
+  }
 }
 
 /**
@@ -78,9 +173,15 @@ export function modelWarning(eq: Equilibrium): string {
   // the model's range is molal (I/ρw); it is printed in mol/L, the unit of IONICSTRENGTH and SPECIES
   const rhoW = Math.exp(p.lnWaterDensity);
   const ionicMolal = eq.ionicStrengthM / rhoW;
-  if (p.model !== 'ideal' && ionicMolal > limit) {
+  const departure = p.model === 'davies' || p.model === 'bates-guggenheim' ? sitDeparture(eq) : undefined;
+  if (departure !== undefined) {
+    if (Math.abs(departure.pH - eq.pH) > SIT_DEPARTURE_PH) {
+      warnings.push(`the ${MODEL_DISPLAY_NAMES[p.model]} pH departs from the sit model's (${departure.pH.toFixed(3)}) by ${Math.abs(departure.pH - eq.pH).toFixed(3)} at ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L: treat it as an estimate, or use model sit`);
+    }
+  } else if (p.model !== 'ideal' && ionicMolal > limit) {
     warnings.push(`ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L is above the ${MODEL_DISPLAY_NAMES[p.model] ?? p.model} model's range (about ${Number((limit * rhoW).toPrecision(3))} mol/L here): treat the pH as an estimate`);
   }
+  if (p.sit) warnings.push(...sitWarnings(eq));
   if (p.model === 'ideal' && ionicMolal > 0.001) {
     warnings.push(`ideal model at ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L: activity corrections are ignored`);
   }

@@ -5,6 +5,7 @@ import { fail } from './failure';
 import { fixedPointStart, fixedPointStep } from './fixedPoint';
 import type { Problem } from './problem';
 import { setActivity } from './problem';
+import { SIT_TOLERANCE, sitApply, sitRefresh } from './sit';
 
 export interface Equilibrium {
   problem: Problem;
@@ -119,11 +120,11 @@ export function lnGammaZ2For(problem: Problem, ionicStrengthM: number): number {
 
 /** pH on the molal activity scale, −log10(γ m) with m = c/ρw, from ln [H⁺] (mol/L). */
 export function pHFromLnH(problem: Problem, lnH: number): number {
-  return -(lnH + problem.lnGammaZ2 - problem.lnWaterDensity) / Math.LN10;
+  return -(lnH + problem.lnGammaZ2 + (problem.sit ? problem.sit.offset[0] : 0) - problem.lnWaterDensity) / Math.LN10;
 }
 
 export function lnHFromPH(problem: Problem, pH: number): number {
-  return -pH * Math.LN10 - problem.lnGammaZ2 + problem.lnWaterDensity;
+  return -pH * Math.LN10 - problem.lnGammaZ2 - (problem.sit ? problem.sit.offset[0] : 0) + problem.lnWaterDensity;
 }
 
 const jac: JacobianOut = { f: 0, dfdy: 0, dfdL: 0, ionicStrengthM: 0, dIdy: 0, dIdL: 0, chargeScaleM: 0 };
@@ -159,6 +160,8 @@ const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scal
 function solveJoint(problem: Problem, yStart: number | undefined): { y: number; f: number; scale: number; ionic: number } | undefined {
   let L = lnGammaZ2For(problem, startingIonicStrength(problem));
   let y = yStart ?? startingLnH(problem, L);
+  // first offsets from the starting guess (no shift: the guess is no root to move)
+  // (no first refresh: the offsets in use, from a previous solve of this problem or zero, serve until the first evaluation)
   for (let iter = 0; iter < 40; iter++) {
     jointJacobian(problem, y, L, joint);
     const { f, F2, j11, j12, j21, j22 } = joint;
@@ -167,12 +170,16 @@ function solveJoint(problem: Problem, yStart: number | undefined): { y: number; 
     let dy = (-f * j22 + F2 * j12) / det;
     let dL = (-F2 * j11 + f * j21) / det;
     if (!Number.isFinite(dy) || !Number.isFinite(dL)) return undefined;
-    if (Math.abs(f) <= 1e-15 * joint.scale && Math.abs(F2) <= LN_GAMMA_TOLERANCE) {
-      return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM };
-    }
     // quadratic convergence: a step this small means this point is already the root to about
     // 1e-12 in ln h, and the values in `joint` are this point's own, so no further evaluation
-    if (Math.abs(dy) < 1e-11 && Math.abs(dL) < 1e-12) {
+    const converged = (Math.abs(f) <= 1e-15 * joint.scale && Math.abs(F2) <= LN_GAMMA_TOLERANCE) || (Math.abs(dy) < 1e-11 && Math.abs(dL) < 1e-12);
+    // the specific-ion offsets follow the speciation, lagged one step; a root counts only once they have settled
+    if (problem.sit) {
+      const moved = sitRefresh(problem, y, true);
+      if (converged && moved <= SIT_TOLERANCE) return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM };
+      // the Newton step below is still taken: it is this point's own, and the new offsets' shift is added to it
+      y += sitApply(problem, j11);
+    } else if (converged) {
       return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM };
     }
     if (Math.abs(dy) > MAX_STEP_LN) { const k = MAX_STEP_LN / Math.abs(dy); dy *= k; dL *= k; }
@@ -201,7 +208,10 @@ function settleActivity(problem: Problem, yStart: number | undefined): number {
   for (let iter = 0; iter < 100; iter++) {
     y = solveFixedActivity(problem, y, scratch);
     const residual = lnGammaZ2For(problem, scratch.ionicStrengthM) - lnGamma;
-    if (Math.abs(residual) <= LN_GAMMA_TOLERANCE) return y;
+    // under sit the offsets settle in the same loop (plain substitution: they depend on the speciation only weakly)
+    const moved = problem.sit ? sitRefresh(problem, y) : 0;
+    if (Math.abs(residual) <= LN_GAMMA_TOLERANCE && moved <= SIT_TOLERANCE) return y;
+    if (problem.sit) sitApply(problem);
     previous = lnGamma;
     lnGamma = fixedPointStep(search, lnGamma, residual);
     setActivity(problem, lnGamma);

@@ -5,10 +5,12 @@ import { fixedPointStart, fixedPointStep } from './fixedPoint';
 import { atTarget, setAmounts } from './linearTarget';
 import type { AtTarget, ReagentVector, TargetProblem } from './linearTarget';
 import { setActivity } from './problem';
+import { sitApply, sitRefresh } from './sit';
 import { lnGammaZ2For } from './solver';
 
 // The activity correction of a linear-at-target solve: the amounts solved at fixed activity
-// coefficients set the ionic strength, which sets the next coefficients, until they agree.
+// coefficients set the ionic strength, which sets the next coefficients, until they agree. Under
+// `sit` the specific-ion offsets (sit.ts) are refreshed with them, to LN_GAMMA_TOLERANCE as well.
 
 const scratch: BalanceOut = { derivative: 0, ionicStrengthM: 0, chargeScaleM: 0 };
 const MAX_PASSES = 100;
@@ -37,7 +39,10 @@ export function iterateActivity(target: TargetProblem, targetPH: number, solveLi
     setAmounts(target, solved.vectors, solved.amountsMol.map((a) => Math.max(0, a)), Math.max(solved.volumeL, target.baseVolumeL));
     chargeBalance(p, at.lnH, scratch);
     const residual = lnGammaZ2For(p, scratch.ionicStrengthM) - lnGamma;
-    if (Math.abs(residual) <= LN_GAMMA_TOLERANCE) return solved;
+    // under sit the specific-ion offsets at the target settle in the same loop (they follow the amounts and the speciation)
+    const moved = p.sit ? sitRefresh(p, at.lnH, true) : 0;
+    if (Math.abs(residual) <= LN_GAMMA_TOLERANCE && moved <= LN_GAMMA_TOLERANCE) return solved;
+    if (p.sit) sitApply(p);
     previous = lnGamma;
     lnGamma = fixedPointStep(search, lnGamma, residual);
     setActivity(p, lnGamma);

@@ -1,4 +1,5 @@
 import { ionicStrengthFactorSlope } from './activity';
+import { fail } from './failure';
 import type { Contents } from './mixture';
 import type { Problem } from './problem';
 import type { Equilibrium, JointJacobian } from './solver';
@@ -30,6 +31,11 @@ export class PHSensitivity {
 
   constructor(readonly eq: Equilibrium) {
     const p = eq.problem;
+    // the implicit derivatives hold each species' specific-ion offset fixed, but under sit it moves with every
+    // amount (Na⁺ from a salt row, the forms with the pH): refused rather than a budget that leaves that out
+    if (p.sit) {
+      fail({ code: 'bad_model', argument: 'model', received: 'sit', expected: 'davies, bates-guggenheim or ideal: the uncertainty budget is not yet available under sit' });
+    }
     const L = lnGammaZ2For(p, eq.ionicStrengthM);
     jointJacobian(p, eq.lnH, L, joint);
     const det = joint.j11 * joint.j22 - joint.j12 * joint.j21;

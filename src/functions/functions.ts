@@ -34,7 +34,7 @@ function run<T>(compute: () => T): T {
  * @param units Unit of each amount (g mg kg µg, mol mmol µmol nmol, M mM µM nM, g/L mg/mL % w/v, N, L mL µL; water by volume): one cell or one per row.
  * @param [volume] Final volume of the solution, L. Needed when a row is a mass, amount or volume.
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @returns pH (activity scale).
  */
 function PHMIX(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, model?: any): number {
@@ -52,7 +52,7 @@ function PHMIX(reagents: any[][], amounts: any[][], units: any[][], volume?: any
  * @param volume Volume of the mixture before the titrant goes in, L.
  * @param titrant A stock such as 1 M NaOH, or a solid such as NaOH.
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @param [resultUnit] Unit of the result: mL (default for solutions), g (default for solids), L µL mg kg mol mmol.
  * @param [finalVolume] Make the adjusted solution up to this volume, L, as a batch record does (default: no make-up).
  * @returns Amount of titrant in resultUnit.
@@ -74,7 +74,7 @@ function TITRANT(targetPH: number, reagents: any[][], amounts: any[][], units: a
  * @param maxAmount Largest amount of titrant, in resultUnit.
  * @param [points] Number of rows, 2 to 1001 (default 51).
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @param [resultUnit] Unit of the titrant column (default mL for solutions, g for solids).
  * @returns A points×3 spill: titrant added, pH, check text (empty inside the model's validity, else the reason).
  */
@@ -91,7 +91,7 @@ function CURVE(reagents: any[][], amounts: any[][], units: any[][], volume: numb
  * @param pH pH (activity scale).
  * @param [temperature] Temperature, °C (default 25).
  * @param [ionicStrength] Ionic strength, mol/L (default 0: thermodynamic constants; above 0: the model's apparent constants).
- * @param [model] Activity model at that ionic strength: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model at that ionic strength: davies (default), bates-guggenheim, sit (NaCl medium) or ideal.
  * @returns A 1×(n+1) spill of fractions.
  */
 function FRACTIONS(system: string, pH: number, temperature?: any, ionicStrength?: any, model?: any): number[][] {
@@ -107,7 +107,7 @@ function FRACTIONS(system: string, pH: number, temperature?: any, ionicStrength?
  * @param units Unit of each amount: one cell or one per row.
  * @param [volume] Final volume of the solution, L.
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @returns A spill with a header row.
  */
 function SPECIES(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, model?: any): any[][] {
@@ -123,7 +123,7 @@ function SPECIES(reagents: any[][], amounts: any[][], units: any[][], volume?: a
  * @param units Unit of each amount: one cell or one per row.
  * @param [volume] Final volume of the solution, L.
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @returns A spill with a header row.
  */
 function CONSTANTS(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, model?: any): any[][] {
@@ -139,7 +139,7 @@ function CONSTANTS(reagents: any[][], amounts: any[][], units: any[][], volume?:
  * @param units Unit of each amount: one cell or one per row.
  * @param [volume] Final volume of the solution, L.
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @returns Warning text, or none.
  */
 function WARNINGS(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, model?: any): string {
@@ -155,7 +155,7 @@ function WARNINGS(reagents: any[][], amounts: any[][], units: any[][], volume?: 
  * @param units Unit of each amount: one cell or one per row.
  * @param [volume] Final volume of the solution, L.
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @returns Ionic strength, mol/L.
  */
 function IONICSTRENGTH(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, model?: any): number {
@@ -171,7 +171,7 @@ function IONICSTRENGTH(reagents: any[][], amounts: any[][], units: any[][], volu
  * @param units Unit of each amount: one cell or one per row.
  * @param [volume] Final volume of the solution, L.
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @returns Buffer capacity, mol/(L·pH).
  */
 function CAPACITY(reagents: any[][], amounts: any[][], units: any[][], volume?: any, temperature?: any, model?: any): number {
@@ -186,7 +186,7 @@ function CAPACITY(reagents: any[][], amounts: any[][], units: any[][], volume?: 
  * @param step Step, 1 = first proton lost.
  * @param [temperature] Temperature, °C (default 25).
  * @param [ionicStrength] Ionic strength, mol/L (default 0).
- * @param [model] Activity model at that ionic strength: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model at that ionic strength: davies (default), bates-guggenheim, sit (NaCl medium) or ideal.
  * @returns pKa.
  */
 function PKA(system: string, step: number, temperature?: any, ionicStrength?: any, model?: any): number {
@@ -203,7 +203,7 @@ function PKA(system: string, step: number, temperature?: any, ionicStrength?: an
  * @param concentration Total concentration of the buffer system, mol/L.
  * @param volume Final volume, L (everything made up to it).
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @param [otherReagents] Other reagents in the buffer (a salt, say).
  * @param [otherAmounts] Their amounts.
  * @param [otherUnits] Their units.
@@ -225,7 +225,7 @@ function RECIPE(acidForm: string, baseForm: string, targetPH: number, concentrat
  * @param units Unit of each amount: one cell or one per row.
  * @param volume Final volume, L, salt included.
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @param [resultUnit] Unit of the result: g (default for solids), mL (default for stocks), mg kg mol mmol L µL.
  * @returns Amount of salt in resultUnit.
  */
@@ -328,7 +328,7 @@ function HANDCHECK(reagents: any[][], amounts: any[][], units: any[][], volume?:
  * @param units Unit of each amount: one cell or one per row.
  * @param volume Final volume of the solution, L.
  * @param [temperature] Temperature, °C (default 25).
- * @param [model] Activity model: davies (default), bates-guggenheim or ideal.
+ * @param [model] Activity model: davies (default), bates-guggenheim, sit (to about 3 mol/kg) or ideal.
  * @param [amountTolerances] ± tolerance of each amount in its own unit: one cell for all, or one per row.
  * @param [volumeTolerance] ± tolerance of the final volume, L.
  * @param [temperatureTolerance] ± tolerance of the temperature, °C.

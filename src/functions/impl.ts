@@ -94,7 +94,12 @@ export function species(reagents: Cell, amounts: Cell, units: Cell, volume?: Cel
   table.push(['charge-balance residual (relative)', finite(eq.residualRelative, 'residual'), '', '', '']);
   // The basis a reviewer needs to reproduce the activity column: activity = γ·c/ρw (molal).
   const rhoW = Math.exp(eq.problem.lnWaterDensity);
-  table.push(['model', `${m.model}, ${m.temperatureC} °C; activity = γ·c/ρw, γ from the ionic strength on the molal basis I/ρw, ρw ${rhoW.toFixed(6)} kg/L`, '', '', '']);
+  // under sit γ also carries Σ ε·m (catalogue ε table) and Kw the water activity: both stated, so the column can be reproduced
+  const sit = eq.problem.sit;
+  const basis = sit
+    ? `log γ = −z²·D(I/ρw) + Σ ε·m (SIT, m = c/ρw), water activity ${Math.exp(sit.lnWaterActivity).toFixed(5)} in Kw`
+    : 'γ from the ionic strength on the molal basis I/ρw';
+  table.push(['model', `${m.model}, ${m.temperatureC} °C; activity = γ·c/ρw, ${basis}, ρw ${rhoW.toFixed(6)} kg/L`, '', '', '']);
   table.push(['warning', warning === '' ? 'none' : warning, '', '', '']);
   return table;
 }

@@ -1,0 +1,233 @@
+import { SIT_ESTIMATE_UNCERTAINTY, sitEpsilonRow, sitEstimate } from '../catalogue';
+import type { Problem } from './problem';
+
+// The specific ion interaction theory (Brønsted–Guggenheim–Scatchard form, as the NEA TDB reviews use it):
+// log10 γi = −zi² D + Σk ε(i,k) mk, D = A√Im/(1 + 1.5√Im). The D term is the problem's scalar
+// L = ln γ / z² (the Bates–Guggenheim factor); this module holds the rest: for each species an additive
+// ln γ offset ln10·Σk ε(i,k) mk, and ln aw from the SIT osmotic coefficient. The offsets of the water
+// ions and the system forms depend on the speciation, so the solver settles them with the solution.
+
+/** The SIT's b = 1.5 kg^½ mol^-½ at every temperature (NEA TDB convention, Grenthe et al. 1997). */
+export const SIT_B = 1.5;
+/** Offsets and ln aw count as settled when a refresh moves them less than this (ln units; about 4e-13 pH). */
+export const SIT_TOLERANCE = 1e-12;
+/** Molar mass of water, kg/mol (IAPWS, common practice). */
+const WATER_KG_PER_MOL = 0.018015268;
+
+/** A charge-type estimate the solve used in place of a published ε. */
+export interface EstimatedPair { cation: string; anion: string; epsilon: number; cationIndex: number; anionIndex: number }
+
+/**
+ * The SIT part of a problem. Species order: the variable species (H⁺, OH⁻, then each system's forms from
+ * `formStart[i]`) followed by the strong ions; ε matrices carry ln 10 and are symmetric.
+ */
+export interface SitState {
+  formStart: Int32Array;
+  nVariable: number;
+  charges: Float64Array;
+  keys: string[];
+  /** the pairs with an ε, each once: species a, species b, ln10·ε */
+  pairA: Int32Array;
+  pairB: Int32Array;
+  pairLnEps: Float64Array;
+  /** 1/ρw, L/kg: molality per mol/L */
+  inverseRho: number;
+  estimated: EstimatedPair[];
+  /** ln γ offsets of the variable species in use */
+  offset: Float64Array;
+  lnWaterActivity: number;
+  // scratch for a refresh
+  next: Float64Array;
+  nextLnWaterActivity: number;
+  molal: Float64Array;
+  all: Float64Array;
+}
+
+interface PairTable { pairA: Int32Array; pairB: Int32Array; pairLnEps: Float64Array; estimated: EstimatedPair[] }
+// the pair table depends only on which species a problem has (catalogue ε): one per species list
+const pairCache = new Map<string, PairTable>();
+
+function pairTable(keys: string[], charges: number[]): PairTable {
+  const cacheKey = keys.join('|');
+  const cached = pairCache.get(cacheKey);
+  if (cached) return cached;
+  const n = keys.length;
+  const pairA: number[] = [], pairB: number[] = [], pairLnEps: number[] = [];
+  const estimated: EstimatedPair[] = [];
+  for (let a = 0; a < n; a++) {
+    for (let b = 0; b < n; b++) {
+      if (!(charges[a] > 0 && charges[b] < 0)) continue;
+      // H⁺ with OH⁻: their product is Kw-small, and γH cancels from pH = pKw − log aw + log aOH; no pair
+      if (a === 0 && b === 1) continue;
+      const row = sitEpsilonRow(keys[a], keys[b]);
+      const epsilon = row ? row.epsilon : sitEstimate(charges[a], charges[b], keys[b]);
+      if (!row) estimated.push({ cation: keys[a], anion: keys[b], epsilon, cationIndex: a, anionIndex: b });
+      if (epsilon !== 0) { pairA.push(a); pairB.push(b); pairLnEps.push(Math.LN10 * epsilon); }
+    }
+  }
+  const table = { pairA: Int32Array.from(pairA), pairB: Int32Array.from(pairB), pairLnEps: Float64Array.from(pairLnEps), estimated };
+  if (pairCache.size > 5000) pairCache.clear();
+  pairCache.set(cacheKey, table);
+  return table;
+}
+
+/** Builds the SIT state for a prepared problem (ε looked up once per species list; concentrations are read at each refresh). */
+export function prepareSit(problem: Problem): SitState {
+  const keys = ['H+', 'OH-'], charges = [1, -1];
+  const formStart = new Int32Array(problem.systems.length);
+  problem.systems.forEach((s, i) => {
+    formStart[i] = keys.length;
+    // a custom system's id may be reused with other data: its forms carry no published ε anyway
+    for (let j = 0; j < s.lnCumK.length; j++) { keys.push(`${s.system.id}${s.system.custom ? '*' : ''}/${j}`); charges.push(s.z0 - j); }
+  });
+  const nVariable = keys.length;
+  for (const ion of problem.ions) { keys.push(ion.id); charges.push(ion.charge); }
+  const n = keys.length;
+  const table = pairTable(keys, charges);
+  return {
+    formStart, nVariable, charges: Float64Array.from(charges), keys, estimated: table.estimated,
+    pairA: table.pairA, pairB: table.pairB, pairLnEps: table.pairLnEps, inverseRho: Math.exp(-problem.lnWaterDensity),
+    offset: new Float64Array(nVariable), lnWaterActivity: 0, next: new Float64Array(n), nextLnWaterActivity: 0,
+    molal: new Float64Array(n), all: new Float64Array(n),
+  };
+}
+
+/** σ(x) = (3/x³)(1 + x − 1/(1+x) − 2 ln(1+x)) of the SIT osmotic coefficient; its series below x = 0.01. */
+function osmoticSigma(x: number): number {
+  if (x < 0.01) return 1 - 1.5 * x + 1.8 * x * x - 2 * x * x * x;
+  return (3 / (x * x * x)) * (1 + x - 1 / (1 + x) - 2 * Math.log(1 + x));
+}
+
+/** Molalities (mol/kg, m = c/ρw as the engine converts) of every species at ln h with the problem's current constants. */
+function fillMolalities(problem: Problem, sit: SitState, lnH: number): void {
+  const m = sit.molal, rho = 1 / sit.inverseRho;
+  m[0] = Math.exp(lnH) / rho;
+  m[1] = Math.exp(problem.lnKwc - lnH) / rho;
+  problem.systems.forEach((s, i) => {
+    const cum = s.lnCumK, start = sit.formStart[i], c = problem.totalsM[i] / rho;
+    let max = -Infinity;
+    for (let j = 0; j < cum.length; j++) max = Math.max(max, cum[j] - j * lnH);
+    let sum = 0;
+    for (let j = 0; j < cum.length; j++) { const w = Math.exp(cum[j] - j * lnH - max); m[start + j] = w; sum += w; }
+    for (let j = 0; j < cum.length; j++) m[start + j] = c > 0 ? (m[start + j] / sum) * c : 0;
+  });
+  problem.ions.forEach((ion, k) => { m[sit.nVariable + k] = ion.concentrationM / rho; });
+}
+
+/**
+ * Computes, at ln h with the current constants, the offsets of every species (into `sit.all`) and ln aw;
+ * the variable species' offsets go to `sit.next`. Returns how far they are from those in use (ln units).
+ * `atLastEvaluation`: ln h is the point of the last charge-balance evaluation, whose molalities of the
+ * water ions and forms chargeBalanceJacobian has left in `sit.molal` (saves their exponentials).
+ */
+export function sitRefresh(problem: Problem, lnH: number, atLastEvaluation = false): number {
+  const sit = problem.sit as SitState;
+  const m = sit.molal, n = sit.keys.length, all = sit.all;
+  if (atLastEvaluation) {
+    const ions = problem.ions;
+    for (let k = 0; k < ions.length; k++) m[sit.nVariable + k] = ions[k].concentrationM * sit.inverseRho;
+  } else {
+    fillMolalities(problem, sit, lnH);
+  }
+  let sumM = 0, z2m = 0, pairSum = 0;
+  for (let a = 0; a < n; a++) {
+    all[a] = 0;
+    sumM += m[a];
+    z2m += sit.charges[a] * sit.charges[a] * m[a];
+  }
+  const pa = sit.pairA, pb = sit.pairB, pe = sit.pairLnEps;
+  for (let k = 0; k < pe.length; k++) {
+    const a = pa[k], b = pb[k], e = pe[k];
+    all[a] += e * m[b];
+    all[b] += e * m[a];
+    pairSum += 2 * e * m[a] * m[b];
+  }
+  // SIT osmotic coefficient: Σm(1 − φ) = (2/3) ln10 A I^3/2 σ(b√I) − ln10 Σc Σa ε mc ma (the pair sum counts each pair twice)
+  const ionic = z2m / 2, root = Math.sqrt(ionic);
+  const oneMinusPhiSum = (2 / 3) * Math.LN10 * problem.debyeHuckelA * ionic * root * osmoticSigma(SIT_B * root) - pairSum / 2;
+  sit.nextLnWaterActivity = -WATER_KG_PER_MOL * (sumM - oneMinusPhiSum);
+  let change = Math.abs(sit.nextLnWaterActivity - sit.lnWaterActivity);
+  for (let a = 0; a < sit.nVariable; a++) {
+    sit.next[a] = sit.all[a];
+    change = Math.max(change, Math.abs(sit.all[a] - sit.offset[a]));
+  }
+  return change;
+}
+
+/**
+ * Puts the offsets of the last refresh in use (the caller then sets the conditional constants). Returns the
+ * first-order move of the root in ln h that the new constants cause at fixed L, −Δf/(∂f/∂ln h), from the
+ * speciation of the refresh: the solver adds it to its iterate, so the lagged offsets do not slow Newton
+ * down (a change of ln γ(H⁺) alone moves ln h by minus that change). `dfdy`: ∂f/∂ln h there, mol/L.
+ */
+export function sitApply(problem: Problem, dfdy = 0): number {
+  const sit = problem.sit as SitState;
+  const next = sit.next, off = sit.offset, m = sit.molal, rho = 1 / sit.inverseRho;
+  const dH = next[0] - off[0];
+  // f = h − oh + Σ c (z0 − ⟨j⟩) + strong; ∂f/∂lnKwc = −oh, ∂⟨j⟩/∂lnCumK[j] = α_j (j − ⟨j⟩)
+  let df = -m[1] * rho * (sit.nextLnWaterActivity - sit.lnWaterActivity - dH - (next[1] - off[1]));
+  const systems = problem.systems;
+  for (let i = 0; i < systems.length; i++) {
+    const start = sit.formStart[i], n = systems[i].lnCumK.length, c = problem.totalsM[i];
+    if (!(c > 0)) continue;
+    let mean = 0;
+    for (let j = 0; j < n; j++) mean += j * m[start + j];
+    mean /= c / rho;
+    const d0 = next[start] - off[start];
+    for (let j = 1; j < n; j++) df -= m[start + j] * rho * (j - mean) * (d0 - j * dH - (next[start + j] - off[start + j]));
+  }
+  for (let a = 0; a < sit.nVariable; a++) off[a] = next[a];
+  sit.lnWaterActivity = sit.nextLnWaterActivity;
+  const shift = dfdy > 0 ? -df / dfdy : -dH;
+  return Number.isFinite(shift) ? shift : 0;
+}
+
+/** The offsets in use, and ln aw, to restore after a side computation re-solves the problem. */
+export function sitSnapshot(problem: Problem): { offset: Float64Array; lnWaterActivity: number } | undefined {
+  const sit = problem.sit;
+  return sit ? { offset: Float64Array.from(sit.offset), lnWaterActivity: sit.lnWaterActivity } : undefined;
+}
+
+export function sitRestore(problem: Problem, snapshot: { offset: Float64Array; lnWaterActivity: number } | undefined): void {
+  if (!problem.sit || !snapshot) return;
+  problem.sit.offset.set(snapshot.offset);
+  problem.sit.lnWaterActivity = snapshot.lnWaterActivity;
+}
+
+/**
+ * ln γ offset of each strong ion at a solution (its counter-ions' molalities there), for SPECIES.
+ * The variable species' offsets are the ones in use (`sit.offset`), with which the solution is consistent.
+ */
+export function sitStrongOffsets(problem: Problem, lnH: number): number[] {
+  const sit = problem.sit as SitState;
+  sitRefresh(problem, lnH);
+  return problem.ions.map((_, k) => sit.all[sit.nVariable + k]);
+}
+
+/**
+ * Pairs whose ε is a charge-type estimate and that matter at this solution: the cation and the anion each
+ * at 1 mmol/kg or more and one of them at 0.02 mol/kg or more (where ± 0.10 kg/mol moves log γ by 0.002).
+ */
+export function sitEstimatesInUse(problem: Problem, lnH: number): EstimatedPair[] {
+  const sit = problem.sit as SitState;
+  fillMolalities(problem, sit, lnH);
+  const m = sit.molal;
+  return sit.estimated.filter((p) => {
+    const a = m[p.cationIndex], b = m[p.anionIndex];
+    return Math.min(a, b) >= 1e-3 && Math.max(a, b) * SIT_ESTIMATE_UNCERTAINTY >= 0.002;
+  });
+}
+
+/**
+ * ln γ offset of a species in a sodium chloride medium of molality `mediumMolal` (mol/kg): ln10·ε with
+ * Na⁺ (anions) or Cl⁻ (cations) times the medium's molality. Used by PKA and FRACTIONS under `sit`,
+ * whose stated ionic strength is read as NaCl medium (common practice for apparent constants).
+ * @example naclMediumOffset('phosphate/2', -2, 1) // ln10 · (−0.15) · 1
+ */
+export function naclMediumOffset(key: string, charge: number, mediumMolal: number): number {
+  if (charge === 0) return 0;
+  const cation = charge > 0 ? key : 'Na+', anion = charge > 0 ? 'Cl-' : key;
+  const row = sitEpsilonRow(cation, anion);
+  const epsilon = row ? row.epsilon : sitEstimate(charge > 0 ? charge : 1, charge > 0 ? -1 : charge, anion);
+  return Math.LN10 * epsilon * mediumMolal;
+}

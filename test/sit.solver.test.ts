@@ -1,0 +1,36 @@
+import { evaluateSheet } from '../scripts/lib/sheetEngine';
+import { buildContents, prepareProblem, solve } from '../src/engine';
+import type { MixtureRow } from '../src/engine';
+
+// The sit solve's two paths (joint Newton with the lagged specific-ion offsets, and the bracketed fixed point
+// it falls back to) settle on the same root, and SPECIES under sit reproduces the pH it prints.
+
+const r = (reagent: string, amount: number, unit: string, row: number): MixtureRow => ({ reagent, amount, unit, row });
+const MIXTURES: [string, MixtureRow[]][] = [
+  ['50 mM phosphate + 2 M NaCl', [r('NaH2PO4', 2.4, 'g', 1), r('Na2HPO4', 4.26, 'g', 2), r('NaCl', 2, 'M', 3)]],
+  ['1 M ammonium sulfate', [r('ammonium sulfate', 1, 'M', 1)]],
+  ['3 M HCl', [r('HCl', 3, 'M', 1)]],
+  ['1 M NaOH', [r('NaOH', 1, 'M', 1)]],
+  ['citrate half-neutralised in 1 M KCl', [r('citric acid', 0.1, 'M', 1), r('NaOH', 0.15, 'M', 2), r('KCl', 1, 'M', 3)]],
+  ['EDTA, NaOH, 0.5 M CaCl2', [r('disodium EDTA dihydrate', 18.6, 'g', 1), r('NaOH', 2.0, 'g', 2), r('CaCl2', 0.5, 'M', 3)]],
+];
+
+describe('sit: joint Newton and the bracketed fixed point agree', () => {
+  test.each(MIXTURES)('%s', (_, rows) => {
+    const joint = solve(prepareProblem(buildContents(rows, 1), 25, 'sit'));
+    const bracketed = solve(prepareProblem(buildContents(rows, 1), 25, 'sit'), undefined, 'bracketed');
+    expect(Math.abs(joint.pH - bracketed.pH)).toBeLessThan(1e-11);
+    expect(joint.residualRelative).toBeLessThan(1e-12);
+  });
+});
+
+describe('SPECIES under sit reproduces its pH', () => {
+  test('pH = −log10(γ(H⁺)·c(H⁺)/ρw) from the rows it prints', () => {
+    const v = evaluateSheet([['NaH2PO4', 2.4, 'g'], ['Na2HPO4', 4.26, 'g'], ['NaCl', 1, 'M'], ['=PROTIC.SPECIES(A1:A3,B1:B3,C1:C3,1,25,"sit")']]).slice(3);
+    const h = v.find((row) => row[0] === 'H⁺') as [string, number, number, number, number];
+    const pH = v.find((row) => row[0] === 'pH')?.[1] as number;
+    const rho = Number(/ρw (\d\.\d+) kg\/L/.exec(v.find((row) => row[0] === 'model')?.[1] as string)?.[1]);
+    expect(Math.abs(-Math.log10((h[3] * h[2]) / rho) - pH)).toBeLessThan(1e-6);
+    expect(Math.abs(-Math.log10(h[4]) - pH)).toBeLessThan(1e-9);
+  });
+});

@@ -1,0 +1,92 @@
+import { evaluateSheet } from '../scripts/lib/sheetEngine';
+import { ProticError, parseModel } from '../src/engine';
+import * as impl from '../src/functions/impl';
+import { uncertaintyBudget } from '../src/functions/uncertainty';
+import * as sitModule from '../src/engine/sit';
+
+// WARNINGS under and about sit, through the cell functions: a Davies or Bates–Guggenheim result is flagged
+// where it departs from the sit pH of the same mixture by more than 0.02, not from a fixed ionic strength;
+// sit names the ions whose ε is a charge-type estimate, and its 25 °C ε away from 25 °C.
+
+const PHOSPHATE = [['NaH2PO4'], ['Na2HPO4'], ['NaCl']];
+const UNITS = [['M'], ['M'], ['M']];
+const amounts = (nacl: number): number[][] => [[0.02], [0.03], [nacl]];
+
+describe('parseModel', () => {
+  test.each(['sit', 'SIT', ' Sit '])('%j is sit', (text) => expect(parseModel(text)).toBe('sit'));
+});
+
+describe('the departure warning follows the difference from sit', () => {
+  // 50 mM phosphate (pH ≈ 7) with NaCl from 0 to 2 M: flagged exactly where |pH(model) − pH(sit)| > 0.02
+  const grid = [0, 0.02, 0.05, 0.1, 0.15, 0.2, 0.3, 0.5, 0.75, 1, 1.5, 2];
+  test.each(['davies', 'bates-guggenheim'])('%s', (model) => {
+    for (const nacl of grid) {
+      const pH = impl.ph(PHOSPHATE, amounts(nacl), UNITS, 1, 25, model) as number;
+      const sit = impl.ph(PHOSPHATE, amounts(nacl), UNITS, 1, 25, 'sit') as number;
+      const warning = impl.warnings(PHOSPHATE, amounts(nacl), UNITS, 1, 25, model);
+      const flagged = /departs from the sit model's/.test(warning);
+      expect([nacl, flagged]).toEqual([nacl, Math.abs(pH - sit) > 0.02]);
+      if (flagged) expect(warning).toContain(`(${sit.toFixed(3)}) by ${Math.abs(pH - sit).toFixed(3)}`);
+    }
+  });
+
+  test('Davies is flagged from about 0.05 M NaCl in this buffer, far below the old fixed 0.5 mol/kg', () => {
+    expect(impl.warnings(PHOSPHATE, amounts(0.05), UNITS, 1, 25, 'davies')).toMatch(/departs from the sit model's/);
+    expect(impl.warnings(PHOSPHATE, amounts(0), UNITS, 1, 25, 'davies')).toBe('none');
+  });
+
+  test('a dilute buffer (I ≈ 5 mmol/kg) is below the bound where the sit solve is skipped, and reads none', () => {
+    const spy = jest.spyOn(sitModule, 'prepareSit');
+    try {
+      expect(impl.warnings([['NaH2PO4'], ['Na2HPO4']], [[0.002], [0.001]], [['M'], ['M']], 1, 25, 'davies')).toBe('none');
+      expect(spy).not.toHaveBeenCalled();
+      impl.warnings(PHOSPHATE, amounts(0.01), UNITS, 1, 25, 'davies');
+      expect(spy).toHaveBeenCalled();
+    } finally {
+      spy.mockRestore();
+    }
+  });
+
+  test('beyond sit\'s own 3 mol/kg the fixed range warning stands', () => {
+    const w = impl.warnings([['NaCl']], [[4]], [['M']], 1, 25, 'davies');
+    expect(w).toMatch(/above the Davies model's range/);
+    expect(impl.warnings([['NaCl']], [[4]], [['M']], 1, 25, 'sit')).toMatch(/above the sit model's range \(about 2\.99 mol\/L here\)/);
+  });
+});
+
+describe('sit\'s own warnings', () => {
+  test('ions without a published ε are named, with the estimate used', () => {
+    const w = impl.warnings([['citric acid'], ['NaOH'], ['NaCl']], [[0.05], [0.1], [0.5]], UNITS, 1, 25, 'sit');
+    expect(w).toMatch(/no published ε for .*Na⁺–HCit²⁻ −0\.10/);
+    // phosphate with Na⁺ has published ε: no such line
+    expect(impl.warnings(PHOSPHATE, amounts(0.5), UNITS, 1, 25, 'sit')).toBe('none');
+  });
+
+  test('the 25 °C ε away from 25 °C: warned beyond 15–35 °C', () => {
+    expect(impl.warnings(PHOSPHATE, amounts(0.5), UNITS, 1, 40, 'sit')).toMatch(/25 °C values .* at 40 °C/);
+    expect(impl.warnings(PHOSPHATE, amounts(0.5), UNITS, 1, 30, 'sit')).toBe('none');
+  });
+
+  test('SPECIES states the sit basis and the water activity it put in Kw', () => {
+    const v = evaluateSheet([['NaCl', 2, 'M', '=PROTIC.SPECIES(A1,B1,C1,1,25,"sit")']]);
+    const model = v.find((r) => r[3] === 'model')?.[4] as string;
+    expect(model).toMatch(/^sit, 25 °C; .*Σ ε·m \(SIT.*water activity 0\.93\d{3} in Kw/);
+  });
+
+  test('UNCERTAINTY refuses sit with a coded failure', () => {
+    let error: unknown;
+    try { uncertaintyBudget(PHOSPHATE, amounts(0.5), UNITS, 1, 25, 'sit'); } catch (e) { error = e; }
+    expect(error).toBeInstanceOf(ProticError);
+    expect((error as ProticError).failure).toMatchObject({ code: 'bad_model', argument: 'model' });
+  });
+});
+
+describe('water activity (SIT osmotic coefficient)', () => {
+  // 2 mol/kg NaCl: φ = 0.9833 (Hamer & Wu 1972, from memory), ln aw = −2·2·0.018015·φ → aw = 0.9316
+  test('aw of 2 mol/kg NaCl within 0.001 of the value from the measured osmotic coefficient', () => {
+    const rho = 0.997047;
+    const v = evaluateSheet([['NaCl', 2 * rho, 'M', '=PROTIC.SPECIES(A1,B1,C1,1,25,"sit")']]);
+    const aw = Number(/water activity (\d\.\d+)/.exec(v.find((r) => r[3] === 'model')?.[4] as string)?.[1]);
+    expect(Math.abs(aw - Math.exp(-4 * 0.018015268 * 0.9833))).toBeLessThan(0.001);
+  });
+});
