@@ -13,3 +13,5 @@ export const REAGENTS: readonly Reagent[] = [...CORE_REAGENTS, ...AMINO_ACID_REA
 export const AMBIGUOUS_NAMES: readonly { name: string; choices: string[] }[] = [...CORE_AMBIGUOUS_NAMES, ...AMINO_ACID_AMBIGUOUS_NAMES, ...EXCIPIENT_AMBIGUOUS_NAMES];
 export { STRONG_IONS, strongIonById } from './ions';
 export { ADDIN_VERSION, CATALOGUE_VERSION } from './version';
+export { DENSITY_ESTIMATE, DENSITY_FITS } from './densities';
+export type { DensityFit, DensityPart } from './densities';

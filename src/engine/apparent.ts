@@ -7,15 +7,17 @@ import { debyeHuckelA, waterDensityKgPerL } from './water';
 
 // Constants at a stated ionic strength (mol/L) under an activity model (default Davies), as FRACTIONS,
 // PKA and the pane's system view quote them: pKa' = pH − log10([A]/[HA]) = pKa + log10 γ(A) − log10 γ(HA).
-// The model sees I/ρw (mol/kg), as a mixture's solve does, so PKA at a mixture's IONICSTRENGTH and model
-// is the apparent value its CONSTANTS prints.
+// The model sees I/w (mol/kg), w the kg of water per litre: pure water's density unless a mixture's own w is
+// passed (its problem.density.waterKgPerL), so that at a mixture's IONICSTRENGTH, model and w the value is the
+// apparent one its CONSTANTS prints.
 
 /**
- * Apparent pKa of each step (first proton lost first) at a temperature (°C) and ionic strength (mol/L).
+ * Apparent pKa of each step (first proton lost first) at a temperature (°C) and ionic strength (mol/L), with I/w
+ * on the molal basis (w, kg of water per litre of solution, defaults to pure water's density).
  * @example apparentPKas(phosphate, 25, 0.1, 'bates-guggenheim')[1] // ≈ 6.78
  */
-export function apparentPKas(system: AcidSystem, temperatureC: number, ionicStrengthM: number, model: ActivityModel = 'davies'): number[] {
-  const lnG = lnGammaPerZ2(model, ionicStrengthM / waterDensityKgPerL(temperatureC), debyeHuckelA(temperatureC));
+export function apparentPKas(system: AcidSystem, temperatureC: number, ionicStrengthM: number, model: ActivityModel = 'davies', waterKgPerL = waterDensityKgPerL(temperatureC)): number[] {
+  const lnG = lnGammaPerZ2(model, ionicStrengthM / waterKgPerL, debyeHuckelA(temperatureC));
   return Array.from(lnKaAt(system, temperatureC), (lnKa, i) => {
     const zAcid = system.chargeMostProtonated - i, zBase = zAcid - 1;
     return (-lnKa + lnG * (zBase * zBase - zAcid * zAcid)) / Math.LN10;
@@ -23,8 +25,8 @@ export function apparentPKas(system: AcidSystem, temperatureC: number, ionicStre
 }
 
 /** Fraction of each form, most protonated first, at an activity pH. */
-export function fractionsAtPH(system: AcidSystem, pH: number, temperatureC: number, ionicStrengthM: number, model: ActivityModel = 'davies'): number[] {
-  const pKas = apparentPKas(system, temperatureC, ionicStrengthM, model);
+export function fractionsAtPH(system: AcidSystem, pH: number, temperatureC: number, ionicStrengthM: number, model: ActivityModel = 'davies', waterKgPerL = waterDensityKgPerL(temperatureC)): number[] {
+  const pKas = apparentPKas(system, temperatureC, ionicStrengthM, model, waterKgPerL);
   const cum = new Float64Array(pKas.length + 1);
   pKas.forEach((pKa, k) => { cum[k + 1] = cum[k] - pKa * Math.LN10; });
   return fractionsAt(cum, -pH * Math.LN10);
