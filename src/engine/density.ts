@@ -135,23 +135,7 @@ export function solutionDensity(parts: DensityPartAmount[], temperatureC: number
   const rhoW = waterDensityKgPerL(temperatureC);
   const solutes = solutesOf(parts);
   const soluteMass = solutes.reduce((s, x) => s + x.massKgPerL, 0);
-  let rho = rhoW + 0.7 * soluteMass;
-  let volumes: { lPerKg: number; fitted: boolean }[] = [];
-  let settled = solutes.length === 0;
-  if (settled) rho = rhoW;
-  for (let iter = 0; iter < 100 && !settled; iter++) {
-    const w = soluteMass / rho;
-    volumes = solutes.map((s) => volumeOf(s, w, temperatureC));
-    const soluteVolumeL = solutes.reduce((sum, s, i) => sum + s.massKgPerL * volumes[i].lPerKg, 0);
-    if (!(soluteVolumeL < 1)) {
-      fail({ code: 'out_of_range', argument: 'amounts', received: `solutes that would take up ${fmt(soluteVolumeL)} L of each litre of solution`,
-        expected: 'a composition that can be dissolved: check the amounts, their units and the volume' });
-    }
-    const next = rhoW * (1 - soluteVolumeL) + soluteMass;
-    settled = Math.abs(next - rho) <= 1e-12;
-    rho = next;
-  }
-  if (!settled) fail({ code: 'no_convergence', argument: 'amounts', received: 'a solution density that did not settle', expected: 'a composition within the density fits; please report this case' });
+  const { rho, volumes } = solutes.length === 0 ? { rho: rhoW, volumes: [] } : settleDensity(solutes, soluteMass, rhoW, temperatureC);
   const w = soluteMass / rho;
   const out: DensitySolute[] = solutes.map((s, i) => {
     const v = volumes[i];
@@ -165,6 +149,27 @@ export function solutionDensity(parts: DensityPartAmount[], temperatureC: number
   });
   const waterKgPerL = rho - soluteMass;
   return { temperatureC, densityKgPerL: rho, waterKgPerL, pureWaterKgPerL: rhoW, solutes: out, warnings: densityWarnings(out, rhoW, waterKgPerL), source: sourceText(out), parts };
+}
+
+/**
+ * The density, kg/L, at which the litre's volume balance closes: ρ = ρw (1 − Σ m_i v_i(w)) + Σ m_i with w = Σ m_i/ρ,
+ * by substitution to 1e−12 kg/L. Solutes that would fill the litre by themselves have no solution: a coded failure
+ * (no_convergence, which an inverse search backs off from at its limit), as is a balance that does not settle.
+ */
+function settleDensity(solutes: Pending[], soluteMass: number, rhoW: number, temperatureC: number): { rho: number; volumes: { lPerKg: number; fitted: boolean }[] } {
+  let rho = rhoW + 0.7 * soluteMass;
+  for (let iter = 0; iter < 100; iter++) {
+    const volumes = solutes.map((s) => volumeOf(s, soluteMass / rho, temperatureC));
+    const soluteVolumeL = solutes.reduce((sum, s, i) => sum + s.massKgPerL * volumes[i].lPerKg, 0);
+    if (!(soluteVolumeL < 1)) {
+      return fail({ code: 'no_convergence', argument: 'amounts', received: `solutes that would take up ${fmt(soluteVolumeL)} L of each litre of solution by themselves`,
+        expected: 'a composition that can be dissolved: check the amounts, their units and the volume' });
+    }
+    const next = rhoW * (1 - soluteVolumeL) + soluteMass;
+    if (Math.abs(next - rho) <= 1e-12) return { rho: next, volumes };
+    rho = next;
+  }
+  return fail({ code: 'no_convergence', argument: 'amounts', received: 'a solution density that did not settle', expected: 'a composition within the density fits; please report this case' });
 }
 
 function densityWarnings(solutes: DensitySolute[], rhoW: number, waterKgPerL: number): string[] {
