@@ -78,6 +78,20 @@ describe('solution density against handbook tables, within 0.2 %', () => {
   });
 });
 
+// A mixture, for the mixing rule: standard seawater, salinity 35, at 0.1 MPa. Density: the UNESCO 1981 equation of
+// state (Millero & Poisson 1981), 1023.343 kg/m³ at 25 °C and 1024.763 at 20 °C (from memory). Composition: the
+// reference composition of Millero et al. 2008 (Deep-Sea Res. I 55, 50), mol per kg of seawater (from memory).
+const SEAWATER_MOL_PER_KG: [string, number][] = [['Na+', 0.4689], ['Mg2+', 0.05282], ['Ca2+', 0.01028], ['K+', 0.01021], ['Cl-', 0.5459], ['Br-', 0.000844]];
+describe('a mixture: seawater of salinity 35, within 0.2 %', () => {
+  test.each([[25, 1.023343], [20, 1.024763]])('at %d °C: %d kg/L', (t, reference) => {
+    const contents = { systemMoles: new Map([['sulfate', 0.02823 * reference], ['carbonate', 0.00183 * reference]]),
+      ionMoles: new Map(SEAWATER_MOL_PER_KG.map(([id, m]): [string, number] => [id, m * reference])), volumeL: 1, rows: [] };
+    const miss = prepareProblem(contents, t, 'davies').density.densityKgPerL / reference - 1;
+    if (process.env.DENSITY_REPORT) console.log(`seawater S = 35, ${t} °C\t${(100 * miss).toFixed(3)} %`);
+    expect(Math.abs(miss)).toBeLessThan(TOLERANCE);
+  });
+});
+
 describe('kg of water per litre', () => {
   test.each([0, 25, 37, 60, 100])('dilute: it is pure water\'s density (Kell 1975) at %d °C, exactly with no solute, and 1 µM NaCl lowers it by its own volume only', (t) => {
     expect(solutionDensity([], t).waterKgPerL).toBe(waterDensityKgPerL(t));

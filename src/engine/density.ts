@@ -126,8 +126,8 @@ const fmt = (x: number, digits = 3): string => String(Number(x.toPrecision(digit
 
 /**
  * Density of a solution and its kilograms of water per litre, from the parts it holds (mol/L) at t °C.
- * The volume balance of one litre, 1 = (ρ − Σ m_i)/ρw + Σ m_i v_i(w), w = Σ m_i/ρ, is solved by substitution
- * (v_i moves little with w) to 1e−12 kg/L, and refused when it does not settle or the solutes alone fill the litre.
+ * The volume balance of one litre, 1 = (ρ − Σ m_i)/ρw + Σ m_i v_i(x), x = Σ m_i/ρ the solute mass fraction, is solved
+ * by substitution (v_i moves little with x) to 1e−12 kg/L, and refused when it does not settle or the solutes alone fill the litre.
  * @example solutionDensity([{ part: 'Na+', label: 'Na⁺', charge: 1, concentrationM: 1, molarMassGPerMol: 22.99, organic: false },
  *   { part: 'Cl-', label: 'Cl⁻', charge: -1, concentrationM: 1, molarMassGPerMol: 35.45, organic: false }], 25).densityKgPerL // ≈ 1.0369
  */
@@ -152,7 +152,7 @@ export function solutionDensity(parts: DensityPartAmount[], temperatureC: number
 }
 
 /**
- * The density, kg/L, at which the litre's volume balance closes: ρ = ρw (1 − Σ m_i v_i(w)) + Σ m_i with w = Σ m_i/ρ,
+ * The density, kg/L, at which the litre's volume balance closes: ρ = ρw (1 − Σ m_i v_i(x)) + Σ m_i with x = Σ m_i/ρ,
  * by substitution to 1e−12 kg/L. Solutes that would fill the litre by themselves have no solution: a coded failure
  * (no_convergence, which an inverse search backs off from at its limit), as is a balance that does not settle.
  */
