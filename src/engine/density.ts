@@ -50,7 +50,7 @@ export interface SolutionDensity {
   /** sentences for WARNINGS: estimated solutes or fits out of range, when they are a large part of the solution */
   warnings: string[];
   /** one line naming the sources, for CONSTANTS and SPECIES */
-  source: string;
+  readonly source: string;
   /** the parts it was computed from (to recompute it at another temperature) */
   parts: readonly DensityPartAmount[];
 }
@@ -66,6 +66,14 @@ const MIXING_RULE = 'Laliberté & Cooper 2004 mixing rule';
 // fits by their parts: 'Na+|Cl-' for a salt (cation first), 'acetate#0' for a neutral solute
 const FIT_BY_PARTS = new Map<string, DensityFit>();
 for (const f of DENSITY_FITS) FIT_BY_PARTS.set(f.parts.map((p) => p.part).join('|'), f);
+// salts by cation, then anion: looked up without building a key per pair
+const SALT_FITS = new Map<string, Map<string, DensityFit>>();
+for (const f of DENSITY_FITS) {
+  if (f.parts.length !== 2) continue;
+  const byAnion = SALT_FITS.get(f.parts[0].part) ?? new Map<string, DensityFit>();
+  byAnion.set(f.parts[1].part, f);
+  SALT_FITS.set(f.parts[0].part, byAnion);
+}
 const fitMolarMass = new Map<DensityFit, number>(DENSITY_FITS.map((f) => [f, compositionMassGPerMol(parseFormula(f.formula).composition)]));
 
 /**
@@ -91,7 +99,7 @@ function solutesOf(parts: DensityPartAmount[]): Pending[] {
   for (const c of cations) {
     for (const a of anions) {
       const eq = (eqOf(c) * eqOf(a)) / totalEq; // equivalents per litre of the salt c–a
-      const fit = FIT_BY_PARTS.get(`${c.part}|${a.part}`);
+      const fit = SALT_FITS.get(c.part)?.get(a.part);
       if (fit) {
         const units = eq / (fit.parts[0].count * c.charge);
         out.push({ label: fit.formula, concentrationM: units, massKgPerL: (units * (fitMolarMass.get(fit) as number)) / 1000, fit, estimateLPerKg: estimate(false) });
@@ -148,26 +156,66 @@ export function solutionDensity(parts: DensityPartAmount[], temperatureC: number
     return solute;
   });
   const waterKgPerL = rho - soluteMass;
-  return { temperatureC, densityKgPerL: rho, waterKgPerL, pureWaterKgPerL: rhoW, solutes: out, warnings: densityWarnings(out, rhoW, waterKgPerL), source: sourceText(out), parts };
+  // the source line is text for CONSTANTS and SPECIES only: built when first read, not for every forward solve
+  let source: string | undefined;
+  return {
+    temperatureC, densityKgPerL: rho, waterKgPerL, pureWaterKgPerL: rhoW, solutes: out, warnings: densityWarnings(out, rhoW, waterKgPerL), parts,
+    get source(): string { return (source ??= sourceText(out)); },
+  };
+}
+
+/** A density candidate worth evaluating: finite and above zero. */
+function usableDensity(rho: number): boolean {
+  return Number.isFinite(rho) && rho > 0;
 }
 
 /**
  * The density, kg/L, at which the litre's volume balance closes: ρ = ρw (1 − Σ m_i v_i(x)) + Σ m_i with x = Σ m_i/ρ,
- * by substitution to 1e−12 kg/L. Solutes that would fill the litre by themselves have no solution: a coded failure
+ * by substitution and secant steps to 1e−12 kg/L. Solutes that would fill the litre by themselves have no solution: a coded failure
  * (no_convergence, which an inverse search backs off from at its limit), as is a balance that does not settle.
  */
 function settleDensity(solutes: Pending[], soluteMass: number, rhoW: number, temperatureC: number): { rho: number; volumes: { lPerKg: number; fitted: boolean }[] } {
-  let rho = rhoW + 0.7 * soluteMass;
-  for (let iter = 0; iter < 100; iter++) {
-    const volumes = solutes.map((s) => volumeOf(s, soluteMass / rho, temperatureC));
-    const soluteVolumeL = solutes.reduce((sum, s, i) => sum + s.massKgPerL * volumes[i].lPerKg, 0);
+  // the fits' temperature factors do not depend on the composition: computed once, so each pass is arithmetic
+  const n = solutes.length;
+  const c0 = new Float64Array(n), c1 = new Float64Array(n), shift = new Float64Array(n), mass = new Float64Array(n);
+  solutes.forEach((s, i) => {
+    mass[i] = s.massKgPerL;
+    if (!s.fit) return;
+    const f = s.fit.c, scale = Math.exp(1e-6 * (temperatureC + f[4]) ** 2) / 1000;
+    c0[i] = f[0] * scale; c1[i] = f[1] * scale; shift[i] = f[2] + f[3] * temperatureC;
+  });
+  const volumeAt = (i: number, x: number): number => {
+    const s = solutes[i];
+    if (s.fit) {
+      const v = (x + shift[i]) / (c0[i] * x + c1[i]);
+      if (Number.isFinite(v)) return v;
+    }
+    return s.estimateLPerKg;
+  };
+  // g(ρ) = ρw (1 − Σ m_i v_i(Σm/ρ)) + Σm − ρ = 0: the substitution ρ ← ρ + g is a contraction; a secant step on g
+  // (once two points are known) takes it to 1e−12 kg/L in a few passes where a steep fit would make substitution slow
+  const balance = (r: number): number => {
+    const x = soluteMass / r;
+    let soluteVolumeL = 0;
+    for (let i = 0; i < n; i++) soluteVolumeL += mass[i] * volumeAt(i, x);
     if (!(soluteVolumeL < 1)) {
       return fail({ code: 'no_convergence', argument: 'amounts', received: `solutes that would take up ${fmt(soluteVolumeL)} L of each litre of solution by themselves`,
         expected: 'a composition that can be dissolved: check the amounts, their units and the volume' });
     }
-    const next = rhoW * (1 - soluteVolumeL) + soluteMass;
-    if (Math.abs(next - rho) <= 1e-12) return { rho: next, volumes };
+    return rhoW * (1 - soluteVolumeL) + soluteMass - r;
+  };
+  let rho = rhoW + 0.7 * soluteMass, g = balance(rho);
+  let previous = NaN, gPrevious = NaN;
+  for (let iter = 0; iter < 100; iter++) {
+    const secant = Number.isFinite(previous) && g !== gPrevious ? (g * (rho - previous)) / (g - gPrevious) : NaN;
+    const next = Number.isFinite(secant) && usableDensity(rho - secant) ? rho - secant : rho + g;
+    previous = rho; gPrevious = g;
     rho = next;
+    g = balance(rho);
+    if (Math.abs(g) <= 1e-12 && Math.abs(rho - previous) <= 1e-9) {
+      const x = soluteMass / rho;
+      return { rho, volumes: solutes.map((_, i) => volumeOf(solutes[i], x, temperatureC)) };
+    }
   }
   return fail({ code: 'no_convergence', argument: 'amounts', received: 'a solution density that did not settle', expected: 'a composition within the density fits; please report this case' });
 }
