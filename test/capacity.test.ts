@@ -1,4 +1,4 @@
-import { pKaAt, pKw, waterDensityKgPerL } from '../src/engine';
+import { buildContents, pKaAt, pKw, prepareProblem, solve, updateIonSums, waterDensityKgPerL } from '../src/engine';
 import { ACID_SYSTEMS } from '../src/catalogue';
 import * as impl from '../src/functions/impl';
 
@@ -14,13 +14,33 @@ function centralDifference(reagents: string[], molar: number[], model: string): 
   return (2 * delta) / (pHWith(delta, 0) - pHWith(0, delta));
 }
 
+/**
+ * 2δ/ΔpH with the solution's density held at the buffer's own: β is a property of the buffer, so the titrant's
+ * effect on the kg of water per litre (which depends on which base or acid is added) is not part of it.
+ */
+function centralDifferenceAtFixedDensity(reagents: string[], molar: number[], model: 'davies' | 'ideal'): number {
+  const delta = 1e-6;
+  const contents = buildContents(reagents.map((reagent, i) => ({ reagent, amount: molar[i], unit: 'M', row: i + 1 })), undefined);
+  for (const id of ['Na+', 'Cl-']) contents.ionMoles.set(id, contents.ionMoles.get(id) ?? 0);
+  const base = prepareProblem(contents, 25, model);
+  const pHWith = (naoh: number, hcl: number): number => {
+    const ions = base.ions.map((ion) => ({ ...ion, concentrationM: ion.concentrationM + (ion.id === 'Na+' ? naoh : ion.id === 'Cl-' ? hcl : 0) }));
+    const p = { ...base, ions, systems: base.systems.map((x) => ({ ...x, lnCumK: new Float64Array(x.lnCumK.length) })) };
+    updateIonSums(p);
+    return solve(p).pH;
+  };
+  return (2 * delta) / (pHWith(delta, 0) - pHWith(0, delta));
+}
+
 describe('buffer capacity β = dCb/dpH', () => {
   // Van Slyke: a monoprotic buffer has its greatest capacity at pH = pKa, ln10·C/4 ≈ 0.576·C, plus water's part.
   test('0.1 M acetate at pH = pKa, ideal: ln10·C/4 plus water (common practice)', () => {
     const beta = impl.capacity([['acetic acid'], ['sodium acetate']], [[0.1], [0.1]], 'M', null, 25, 'ideal');
     const pH = impl.ph([['acetic acid'], ['sodium acetate']], [[0.1], [0.1]], 'M', null, 25, 'ideal');
     const pKa = pKaAt(ACID_SYSTEMS.find((s) => s.id === 'acetate')!.steps[0], 25);
-    const h = 10 ** -pH * RHO_25, kw = 10 ** -pKw(25) * RHO_25 ** 2, ka = 10 ** -pKa * RHO_25;
+    // molal constants to mol/L with the solution's kg of water per litre, as CONSTANTS prints it
+    const w = impl.constants([['acetic acid'], ['sodium acetate']], [[0.1], [0.1]], 'M', null, 25, 'ideal').find((r) => r[0] === 'water (kg per L of solution)')![2] as number;
+    const h = 10 ** -pH * w, kw = 10 ** -pKw(25) * w ** 2, ka = 10 ** -pKa * w;
     const expected = LN10 * (0.2 * ka * h / (ka + h) ** 2 + h + kw / h); // C = 0.2 M total acetate
     expect(Math.abs(beta / expected - 1)).toBeLessThan(1e-9);
     expect(Math.abs(beta - LN10 * 0.2 / 4)).toBeLessThan(2e-4); // pH sits within 0.001 of pKa
@@ -48,8 +68,11 @@ describe('buffer capacity β = dCb/dpH', () => {
     ['acetate 0.1 + 0.1 M', ['acetic acid', 'sodium acetate'], [0.1, 0.1]],
     ['Tris 0.05 + Tris HCl 0.05 M', ['Tris', 'Tris hydrochloride'], [0.05, 0.05]],
     ['citrate 0.05 + 0.05 M', ['citric acid', 'trisodium citrate'], [0.05, 0.05]],
-  ])('%s, davies: β matches the central difference 2δ/ΔpH to 1e-6', (_, reagents, molar) => {
+  ])('%s, davies: β matches the central difference 2δ/ΔpH to 1e-6 at the buffer\'s density', (_, reagents, molar) => {
     const beta = impl.capacity(reagents.map((r) => [r]), molar.map((m) => [m]), 'M', null, 25, 'davies');
-    expect(Math.abs(centralDifference(reagents, molar, 'davies') / beta - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(centralDifferenceAtFixedDensity(reagents, molar, 'davies') / beta - 1)).toBeLessThan(1e-6);
+    // through the cells the density follows the added NaOH and HCl, which occupy different volumes: β leaves that
+    // out, and it is under 2e-4 of β for these buffers
+    expect(Math.abs(centralDifference(reagents, molar, 'davies') / beta - 1)).toBeLessThan(2e-4);
   });
 });

@@ -5,6 +5,7 @@ import { applyCustomDefinitions, buildContents, clearCustomDefinitions, prepareP
 import * as impl from '../src/functions/impl';
 import { clearMixtureCache, readMixture } from '../src/functions/mixtureCache';
 import { toCellFailure } from '../src/functions/outcome';
+import { expectMissWithin } from './helpers';
 
 // The cell layer: the cache recognises columns and mixtures without ever answering for another
 // mixture, the fast reading refuses exactly what the general path refuses, and no result depends
@@ -184,8 +185,11 @@ describe('PKA and FRACTIONS take the model a mixture uses', () => {
     const ionic = v[3][0] as number;
     const pka2 = evaluateSheet([[`=PROTIC.PKA("phosphate",2,25,${ionic},"${model}")`], [`=PROTIC.PKA("phosphate",1,25,${ionic},"${model}")`]]);
     const step = (k: number): SheetValue[] => v.slice(5).find((r) => r[0] === 'pKa phosphate' && r[1] === k)!;
-    expect(Math.abs((pka2[0][0] as number) - (step(2)[3] as number))).toBeLessThan(1e-9);
-    expect(Math.abs((pka2[1][0] as number) - (step(1)[3] as number))).toBeLessThan(1e-9);
+    // PKA takes no composition, so it converts I with pure water's density; the mixture's own constants use its kg of
+    // water per litre (0.6 % below ρw here): a known difference of this size, none under ideal
+    const KNOWN: Record<string, [number, number]> = { 'bates-guggenheim': [4.04e-4, 1.35e-4], davies: [1.77e-4, 0.59e-4], ideal: [0, 0] };
+    expectMissWithin((pka2[0][0] as number) - (step(2)[3] as number), KNOWN[model][0], 0.05e-4);
+    expectMissWithin((pka2[1][0] as number) - (step(1)[3] as number), KNOWN[model][1], 0.05e-4);
   });
 
   test('FRACTIONS at the mixture\'s pH, ionic strength and model are its SPECIES shares', () => {
@@ -194,7 +198,8 @@ describe('PKA and FRACTIONS take the model a mixture uses', () => {
     const rows = v.slice(6).filter((r) => ['H3PO4', 'H2PO4⁻', 'HPO4²⁻', 'PO4³⁻'].includes(r[0] as string));
     const total = rows.reduce((sum, r) => sum + (r[2] as number), 0);
     const fr = evaluateSheet([[`=PROTIC.FRACTIONS("phosphate",${pH},25,${ionic},"bates-guggenheim")`]])[0].slice(0, 4) as number[];
-    rows.forEach((r, i) => expect(Math.abs(fr[i] - (r[2] as number) / total)).toBeLessThan(1e-9));
+    // FRACTIONS converts I with pure water's density (see PKA above): the shares differ by the density, 2.3e-4 at most here
+    expectMissWithin(Math.max(...rows.map((r, i) => Math.abs(fr[i] - (r[2] as number) / total))), 2.32e-4, 0.1e-4);
     // and Davies is not what it used: the default model gives other shares at this ionic strength
     const davies = evaluateSheet([[`=PROTIC.FRACTIONS("phosphate",${pH},25,${ionic})`]])[0].slice(0, 4) as number[];
     expect(Math.abs(davies[2] - fr[2])).toBeGreaterThan(1e-3);
@@ -217,7 +222,7 @@ describe('one ionic-strength unit', () => {
     expect(species.find((r) => r[0] === 'ionic strength (mol/L)')![1]).toBe(ionic);
     expect(species.find((r) => r[0] === 'warning')![1]).toBe(warning);
     // the basis the activity model uses is stated where the activities are
-    expect(species.find((r) => r[0] === 'model')![1]).toMatch(/I\/ρw/);
+    expect(species.find((r) => r[0] === 'model')![1]).toMatch(/molal basis I\/w, w 0\.\d{6} kg of water per L of solution; solution density 1\.\d{5} kg\/L/);
   });
 });
 

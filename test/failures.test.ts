@@ -83,7 +83,7 @@ describe('every failure code, with the message a user reads', () => {
   test('beyond the titrant\'s own pH', () => {
     const f = failureOf(() => impl.titrant(12.5, [P], [G], 'g', 1, '0.01 M NaOH'));
     expect(f.code).toBe('unreachable_target');
-    expect(f.message).toMatch(/beyond what 0\.01 M sodium hydroxide can reach with up to 1000 times the mixture's volume added: on its own it has pH 11\.9\d; reachable pH 6\.8759 to 11\.9\d+\./);
+    expect(f.message).toMatch(/beyond what 0\.01 M sodium hydroxide can reach with up to 1000 times the mixture's volume added: on its own it has pH 11\.9\d; reachable pH 6\.8758 to 11\.9\d+\./);
   });
 
   test('a recipe whose forms cannot bracket the target', () => {

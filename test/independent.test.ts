@@ -1,7 +1,7 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import fc from 'fast-check';
 import { ACID_SYSTEMS } from '../src/catalogue';
-import { debyeHuckelA, pKaAt, pKw, prepareProblem, solve, waterDensityKgPerL } from '../src/engine';
+import { debyeHuckelA, pKaAt, pKw, prepareProblem, solutionDensity, solve, stoichiometricParts, lnKaAt, systemFor } from '../src/engine';
 import type { Contents } from '../src/engine';
 
 // Independent method: the ideal charge balance multiplied out into a polynomial in [H⁺],
@@ -104,6 +104,13 @@ function polynomialRoot(systems: { pKa: number[]; z0: number; totalM: number }[]
   return s * x;
 }
 
+/** kg of water per litre of the contents' solution, from the density module alone (no solve). */
+function waterKgPerLOf(contents: Contents, temperatureC: number): number {
+  const systems = [...contents.systemMoles].map(([id, moles]) => ({ system: systemFor(id), totalM: moles / contents.volumeL, lnKa: lnKaAt(systemFor(id), temperatureC) }));
+  const ions = [...contents.ionMoles].map(([id, moles]) => ({ id, charge: id.endsWith('+') ? 1 : -1, concentrationM: moles / contents.volumeL }));
+  return solutionDensity(stoichiometricParts(systems, ions, []), temperatureC).waterKgPerL;
+}
+
 // systems whose data hold over the 5–45 °C the properties draw from
 const candidates = ACID_SYSTEMS.filter((s) => s.id !== 'sulfate' && s.temperatureRangeC[0] <= 5 && s.temperatureRangeC[1] >= 45);
 /** Up to three distinct systems, 10^min to 10^max mol/L each. */
@@ -123,7 +130,9 @@ describe('solver against an independent polynomial root (ml-matrix eigenvalues),
         for (const p of unique) contents.systemMoles.set(candidates[p.system].id, 10 ** p.log10C);
         contents.ionMoles.set(strongM >= 0 ? 'Na+' : 'Cl-', Math.abs(strongM));
         const eq = solve(prepareProblem(contents, temperatureC, 'ideal'));
-        const rho = waterDensityKgPerL(temperatureC);
+        // the mol/L → mol/kg factor is an input of the balance, as the solver's is: the solution's kg of water per
+        // litre from the density model (test/density.test.ts checks it against handbook tables), not the balance
+        const rho = waterKgPerLOf(contents, temperatureC);
         const kwc = 10 ** -pKw(temperatureC) * rho * rho;
         const systems = unique.map((p) => {
           const sys = candidates[p.system];
@@ -156,7 +165,7 @@ describe('solver against the independent root with Davies activity coefficients'
         contents.ionMoles.set('Cl-', Math.max(-strongM, 0) + saltM);
         const eq = solve(prepareProblem(contents, temperatureC, 'davies'));
 
-        const rho = waterDensityKgPerL(temperatureC);
+        const rho = waterKgPerLOf(contents, temperatureC);
         const a = debyeHuckelA(temperatureC);
         const raw = unique.map((p) => {
           const sys = candidates[p.system];

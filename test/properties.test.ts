@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { strongIonById } from '../src/catalogue';
 import {
   buildContents, debyeHuckelA, pKaAt, pKw, prepareProblem, recipeForTarget, parseReagentSpec, solve, speciesRows, systemFor, titrantForTarget,
-  waterDensityKgPerL, withTitrant,
+  withTitrant,
 } from '../src/engine';
 import type { ActivityModel, Contents, Equilibrium } from '../src/engine';
 import { fractions } from '../src/functions/impl';
@@ -11,11 +11,12 @@ import { fractions } from '../src/functions/impl';
  * The balances at a claimed solution, evaluated from the definitions and nothing of chargeBalance.ts, problem.ts
  * or activity.ts: the catalogue pKa at the temperature, Kw, the water density and A, the activity pH and ionic
  * strength the solve returned, activity coefficients written out here (Davies 1962; Bates–Guggenheim, åB = 1.5),
- * each form from Ka = a(H⁺) a(base)/a(acid) on the molal scale, then c = m ρw.
+ * each form from Ka = a(H⁺) a(base)/a(acid) on the molal scale, then c = m w (w kg of water per L, an input).
  */
 function independentBalances(eq: Equilibrium, contents: Contents, temperatureC: number, model: ActivityModel):
   { chargeRelative: number; ionicRelative: number; species: Map<string, number> } {
-  const rho = waterDensityKgPerL(temperatureC), A = debyeHuckelA(temperatureC);
+  // the mol/L → mol/kg factor is an input, as the solver's: the density module's kg of water per litre
+  const rho = eq.problem.density.waterKgPerL, A = debyeHuckelA(temperatureC);
   const I = eq.ionicStrengthM / rho, s = Math.sqrt(I);
   const F = model === 'ideal' ? 0 : model === 'davies' ? s / (1 + s) - 0.3 * I : s / (1 + 1.5 * s);
   const log10Gamma = (z: number): number => -A * z * z * F;

@@ -56,9 +56,9 @@ describe('READBACK with PHMIX, SPECIES and CONSTANTS: every number rebuilt by ha
     expect(Math.abs(charge) / scale).toBeLessThan(1e-9);
     const ionic = sp.reduce((s, r) => s + r[1] * r[1] * r[2], 0) / 2;
     expect(ionic).toBeCloseTo(num(species.find((r) => r[0] === 'ionic strength (mol/L)')![1]), 12);
-    // Davies at CONSTANTS' A on the molal scale, activity = γ c / ρw
+    // Davies at CONSTANTS' A on the molal scale, activity = γ c / w (w: CONSTANTS' kg of water per L)
     const aDH = num(constants.find((r) => String(r[0]).startsWith('Debye'))![2]);
-    const rho = num(constants.find((r) => r[0] === 'water density (kg/L)')![2]);
+    const rho = num(constants.find((r) => r[0] === 'water (kg per L of solution)')![2]);
     const Im = ionic / rho;
     const logGamma1 = -aDH * (Math.sqrt(Im) / (1 + Math.sqrt(Im)) - 0.3 * Im);
     for (const [, z, c, gamma, activity] of sp) {

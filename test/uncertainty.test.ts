@@ -1,4 +1,5 @@
-import { buildContents, prepareProblem, shiftConstants, solve } from '../src/engine';
+import { buildContents, prepareProblem, shiftConstants, solutionDensity, solve } from '../src/engine';
+import * as impl from '../src/functions/impl';
 import type { MixtureRow } from '../src/engine';
 import { uncertaintyBudget } from '../src/functions/uncertainty';
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
@@ -13,7 +14,14 @@ describe('UNCERTAINTY: one input', () => {
     const others = b.lines.slice(1).reduce((s, l) => s + (l.sensitivity * l.u) ** 2, 0);
     expect(others).toBeLessThan(1e-16); // pKw does not matter at pH 2; no volume or temperature tolerance
     expect(Math.abs(b.combined / (Math.abs(amount.sensitivity) * amount.u) - 1)).toBeLessThan(1e-6);
-    expect(Math.abs(amount.sensitivity / (-1 / (0.3646 * Math.LN10)) - 1)).toBeLessThan(1e-6);
+    // ideal: pH = −log10(c/w), so besides −1/(m ln 10) the sensitivity has (d ln w/dm)/ln 10, w the kg of water per
+    // litre, which the HCl's own volume lowers (1.9e-4 of the first term here)
+    const molarMass = impl.molarMass('HCl');
+    const lnW = (g: number): number => Math.log(solutionDensity([
+      { part: 'H+', label: 'H⁺', charge: 1, concentrationM: g / molarMass, molarMassGPerMol: 1.008, organic: false },
+      { part: 'Cl-', label: 'Cl⁻', charge: -1, concentrationM: g / molarMass, molarMassGPerMol: 35.45, organic: false }], 25).waterKgPerL);
+    const viaDensity = (lnW(0.3646 * 1.001) - lnW(0.3646 * 0.999)) / (0.002 * 0.3646) / Math.LN10;
+    expect(Math.abs(amount.sensitivity / (-1 / (0.3646 * Math.LN10) + viaDensity) - 1)).toBeLessThan(1e-6);
   });
 
   test('through the sheet: the spill\'s last rows are u(pH) and U = 2u', () => {

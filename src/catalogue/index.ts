@@ -15,3 +15,5 @@ export { STRONG_IONS, strongIonById } from './ions';
 export { ADDIN_VERSION, CATALOGUE_VERSION } from './version';
 export { SIT_EPSILON, SIT_EPSILON_BAND_C, SIT_ESTIMATE_SOURCE, SIT_ESTIMATE_UNCERTAINTY, sitEpsilonRow, sitEstimate } from './sitEpsilon';
 export type { SitEpsilonRow } from './sitEpsilon';
+export { DENSITY_ESTIMATE, DENSITY_FITS } from './densities';
+export type { DensityFit, DensityPart } from './densities';

@@ -9,7 +9,7 @@ export { MAX_FORMULA_DEPTH, compositionKey, compositionMassGPerMol, hydrateText,
 export type { Composition, HydrateSplit, ParsedFormula } from './formula';
 export { MAX_MASS_STOCK_G_PER_L, addReagent, buildContents, cloneContents, contentsFromParsed, molesPerLitreDispensed, parseReagentSpec, registerSpecReader } from './mixture';
 export type { Contents, MixtureRow, ParsedRow, ReagentSpec, RowAudit, SpecReader } from './mixture';
-export { MAX_COMPONENT_M, checkSystemRange, lnKaAt, prepareProblem, prepareSystem, setActivity } from './problem';
+export { MAX_COMPONENT_M, checkSystemRange, lnKaAt, prepareProblem, prepareSystem, setActivity, updateIonSums } from './problem';
 export type { PreparedSystem, Problem } from './problem';
 export { recipeForTarget, recipeLine } from './recipe';
 export type { RecipeLine } from './recipe';
@@ -49,3 +49,5 @@ export { LADDER_EFFECTS, handLadder } from './handcheck';
 export type { HandLadder } from './handcheck';
 export { CROSSING_SCAN_STEP_C, temperatureForPH, temperatureRangeOf } from './temperatureCrossing';
 export type { PHCrossing } from './temperatureCrossing';
+export { LARGE_SOLUTE_G_PER_L, solutionDensity, stoichiometricParts } from './density';
+export type { DensityPartAmount, DensitySolute, SolutionDensity, SystemAmount } from './density';

@@ -2,12 +2,15 @@ import type { AcidSystem } from '../catalogue';
 import { strongIonById } from '../catalogue';
 import { fail } from './failure';
 import type { ActivityModel } from './activity';
+import { stoichiometricParts, solutionDensity } from './density';
+import type { DensityPartAmount, SolutionDensity } from './density';
+import { compositionMassGPerMol, parseFormula } from './formula';
 import type { Contents } from './mixture';
 import { systemFor } from './registry';
 import { prepareSit } from './sit';
 import type { SitState } from './sit';
 import { pKaAt } from './temperature';
-import { checkWaterRange, debyeHuckelA, pKw, waterDensityKgPerL } from './water';
+import { checkWaterRange, debyeHuckelA, pKw } from './water';
 
 export interface PreparedSystem {
   system: AcidSystem;
@@ -33,7 +36,13 @@ export interface Problem {
   model: ActivityModel;
   /** Debye–Hückel A, molal scale */
   debyeHuckelA: number;
+  /**
+   * ln of the kilograms of water per litre of solution, w = ρsolution − Σ c·M (density.ts): the factor that turns
+   * mol/L into mol/kg (m = c/w) everywhere; pure water's density ρw when the solution is dilute
+   */
   lnWaterDensity: number;
+  /** the solution's density and what it was computed from, fixed by the composition the problem was prepared with */
+  density: SolutionDensity;
   lnKw: number;
   systems: PreparedSystem[];
   totalsM: Float64Array;
@@ -56,7 +65,6 @@ export interface Problem {
 
 interface TemperatureConstants {
   debyeHuckelA: number;
-  lnWaterDensity: number;
   lnKw: number;
 }
 
@@ -67,7 +75,7 @@ const lnKaCache = new Map<string, Float64Array>();
 function waterConstants(temperatureC: number): TemperatureConstants {
   let c = waterCache.get(temperatureC);
   if (!c) {
-    c = { debyeHuckelA: debyeHuckelA(temperatureC), lnWaterDensity: Math.log(waterDensityKgPerL(temperatureC)), lnKw: -pKw(temperatureC) * Math.LN10 };
+    c = { debyeHuckelA: debyeHuckelA(temperatureC), lnKw: -pKw(temperatureC) * Math.LN10 };
     if (waterCache.size > 10000) waterCache.clear();
     waterCache.set(temperatureC, c);
   }
@@ -130,11 +138,12 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
     checkConcentration(id, concentrationM);
     ions.push({ id, charge: ion.charge, concentrationM });
   }
+  const density = solutionDensity(stoichiometricParts(systems.map((s, i) => ({ system: s.system, totalM: totals[i], lnKa: s.lnKa })), ions, excipientParts(contents)), temperatureC);
   const problem: Problem = {
-    temperatureC, model, debyeHuckelA: water.debyeHuckelA, lnWaterDensity: water.lnWaterDensity, lnKw: water.lnKw,
+    temperatureC, model, debyeHuckelA: water.debyeHuckelA, lnWaterDensity: Math.log(density.waterKgPerL), density, lnKw: water.lnKw,
     systems, totalsM: Float64Array.from(totals), ions, strongChargeM: 0, strongZ2M: 0, lnGammaZ2: 0, lnKwc: 0, evaluations: 0,
     stepOrder: stepOrderOf(systems),
-    notes: contents.notes ?? [],
+    notes: [...(contents.notes ?? []), ...density.warnings],
     // always present, so every problem has one shape for the solver's hot loops
     sit: undefined,
   };
@@ -142,6 +151,20 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
   updateIonSums(problem);
   setActivity(problem, 0);
   return problem;
+}
+
+/** Excipient rows, which release nothing, as neutral solutes of the density (anhydrous: hydrate water is water). */
+export function excipientParts(contents: Contents): DensityPartAmount[] {
+  const parts: DensityPartAmount[] = [];
+  for (const row of contents.rows) {
+    const reagent = row.reagent;
+    if (!reagent.excipient || !(row.moles > 0)) continue;
+    const composition = parseFormula(reagent.formula).composition;
+    // a mixture of molecules (polysorbates) weighs its nominal molar mass, as its amount was reckoned with
+    const molarMass = reagent.excipient.nominalMolarMass && reagent.handbookMolarMass ? reagent.handbookMolarMass.gPerMol : compositionMassGPerMol(composition);
+    parts.push({ part: `excipient:${reagent.id}`, label: reagent.name, charge: 0, concentrationM: row.moles / contents.volumeL, molarMassGPerMol: molarMass, organic: (composition.C ?? 0) > 0 });
+  }
+  return parts;
 }
 
 function stepOrderOf(systems: PreparedSystem[]): Int32Array {
@@ -162,8 +185,8 @@ export function updateIonSums(problem: Problem): void {
 }
 
 /**
- * Sets the conditional constants for ln γ = z² · lnGammaZ2 (molal constants, m = c/ρw); under `sit` each
- * species' ln γ also carries its offset ln10·Σ ε m and Kw the water activity (Kw = aH·aOH/aw).
+ * Sets the conditional constants for ln γ = z² · lnGammaZ2 (molal constants, m = c/w, w kg of water per L); under `sit`
+ * each species' ln γ also carries its offset ln10·Σ ε m and Kw the water activity (Kw = aH·aOH/aw).
  */
 export function setActivity(problem: Problem, lnGammaZ2: number): void {
   problem.lnGammaZ2 = lnGammaZ2;

@@ -176,7 +176,7 @@ export function titrantForTarget(targetPH: number, contents: Contents, spec: Rea
   const made = finalVolumeL === undefined ? '' : ` made up to ${finalVolumeL} L`;
   const reason = wrongWay
     ? `the mixture${made} starts at pH ${startText} and ${name} ${raises ? 'raises' : 'lowers'} it, but the target is on the other side`
-    : `the target lies beyond what ${name} can reach ${outcome.searchedTo < limit.moles ? 'with as much as the activity model converges for' : LIMIT_TEXT[limit.reason]}${ownPH !== undefined ? `: on its own it has pH ${ownPH.toFixed(2)}` : ''}`;
+    : `the target lies beyond what ${name} can reach ${outcome.searchedTo < limit.moles ? 'with as much as the solution can hold (its solutes\' volume) and the activity model converges for' : LIMIT_TEXT[limit.reason]}${ownPH !== undefined ? `: on its own it has pH ${ownPH.toFixed(2)}` : ''}`;
   return fail({
     code: 'unreachable_target', argument: 'targetPH', received: `pH ${targetPH}`, reason,
     reachable: { quantity: 'pH', low: outcome.lowest, high: outcome.highest },

@@ -5,7 +5,9 @@ import type { Problem } from './problem';
 import type { Equilibrium, JointJacobian } from './solver';
 import { jointJacobian, lnGammaZ2For } from './solver';
 import { dpKaPerK } from './temperature';
-import { debyeHuckelA, pKw, waterDensityKgPerL } from './water';
+import { solutionDensity, stoichiometricParts } from './density';
+import { excipientParts } from './problem';
+import { debyeHuckelA, pKw } from './water';
 
 // Sensitivities of the pH to its inputs by implicit differentiation of the solved system
 // F(y, L; θ) = (charge balance, L − g(I)) = 0 at the solution: d(y, L)/dθ = −J⁻¹ ∂F/∂θ, with J the solver's own
@@ -115,16 +117,16 @@ export class PHSensitivity {
   }
 
   /**
-   * dpH per kelvin, through each pKa (dpKa/dT from its ΔrH° and ΔrCp°), pKw, the Debye–Hückel A and the water
-   * density; the slopes of the explicit water formulas (IAPWS pKw, A, Kell density) by a central difference of those
-   * formulas, the solve's own sensitivity implicit.
+   * dpH per kelvin, through each pKa (dpKa/dT from its ΔrH° and ΔrCp°), pKw, the Debye–Hückel A and the kg of water
+   * per litre (the solution's density at its composition in mol/L); the slopes of the explicit formulas (IAPWS pKw, A,
+   * the density fits) by a central difference of those formulas, the solve's own sensitivity implicit.
    */
   perKelvin(): number {
     const p = this.eq.problem, t = p.temperatureC, h = 0.005;
     const slope = (fn: (x: number) => number): number => (fn(t + h) - fn(t - h)) / (2 * h);
     let total = this.perPKw() * slope(pKw)
       + this.perDebyeHuckelA() * slope(debyeHuckelA)
-      + this.perLnWaterDensity() * slope((x) => Math.log(waterDensityKgPerL(x)));
+      + this.perLnWaterDensity() * slope((x) => Math.log(solutionDensity([...p.density.parts], x).waterKgPerL));
     p.systems.forEach((s, i) => {
       if (p.totalsM[i] <= 0) return;
       s.system.steps.forEach((step, k) => { total += this.perPKa(i, k) * dpKaPerK(step, t); });
@@ -133,11 +135,41 @@ export class PHSensitivity {
   }
 }
 
-/** Per row: dpH per unit of its amount (in the unit it was typed in), through what the row releases. */
+/**
+ * ln of the kg of water per litre of the problem's solution with each row's reagent moved by deltaM[r] mol/L: the
+ * density formula alone (density.ts), no solve, for the density's part of the amount and volume sensitivities.
+ */
+function lnWaterMoved(p: Problem, contents: Contents, deltaM: number[]): number {
+  const totals = Float64Array.from(p.totalsM);
+  const ionsM = p.ions.map((ion) => ion.concentrationM);
+  contents.rows.forEach((row, r) => {
+    if (!deltaM[r]) return;
+    for (const s of row.reagent.systems) { const i = p.systems.findIndex((x) => x.system.id === s.systemId); if (i >= 0) totals[i] += deltaM[r] * s.count; }
+    for (const ion of row.reagent.ions) { const i = p.ions.findIndex((x) => x.id === ion.ionId); if (i >= 0) ionsM[i] += deltaM[r] * ion.count; }
+  });
+  const moved = { ...contents, rows: contents.rows.map((row, r) => ({ ...row, moles: row.moles + deltaM[r] * contents.volumeL })) };
+  const parts = stoichiometricParts(p.systems.map((s, i) => ({ system: s.system, totalM: totals[i], lnKa: s.lnKa })),
+    p.ions.map((ion, i) => ({ id: ion.id, charge: ion.charge, concentrationM: ionsM[i] })), excipientParts(moved));
+  return Math.log(solutionDensity(parts, p.temperatureC).waterKgPerL);
+}
+
+/** d ln w per unit step of the composition along deltaPerUnit (mol/L of each row), by a central difference of the density formula. */
+function lnWaterSlope(p: Problem, contents: Contents, deltaPerUnit: number[], unit: number): number {
+  const h = 1e-4 * unit;
+  return (lnWaterMoved(p, contents, deltaPerUnit.map((d) => d * h)) - lnWaterMoved(p, contents, deltaPerUnit.map((d) => -d * h))) / (2 * h);
+}
+
+/**
+ * Per row: dpH per unit of its amount (in the unit it was typed in), through what the row releases, and through the
+ * kg of water per litre the row's solute changes (the solution's density).
+ */
 export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, amounts: number[]): number[] {
   const p = sens.eq.problem;
+  const perLnWater = sens.perLnWaterDensity();
   return contents.rows.map((row, r) => {
     if (!(amounts[r] > 0)) return 0;
+    const along = contents.rows.map((_, k) => (k === r ? row.moles / amounts[r] / contents.volumeL : 0));
+    const viaDensity = perLnWater * lnWaterSlope(p, contents, along, amounts[r]);
     let perMole = 0; // dpH per mole of reagent formula units, in the final volume
     for (const s of row.reagent.systems) {
       const i = p.systems.findIndex((x) => x.system.id === s.systemId);
@@ -147,14 +179,15 @@ export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, 
       const found = p.ions.find((x) => x.id === ion.ionId);
       if (found) perMole += (ion.count / contents.volumeL) * sens.perIonM(found.charge);
     }
-    return (perMole * row.moles) / amounts[r];
+    return (perMole * row.moles) / amounts[r] + viaDensity;
   });
 }
 
-/** dpH per litre of final volume: every row not given as a concentration dilutes as the volume grows. */
+/** dpH per litre of final volume: every row not given as a concentration dilutes as the volume grows (its solutes, and their share of the density). */
 export function volumeSensitivity(sens: PHSensitivity, contents: Contents, concentrationRows: boolean[]): number {
   const p = sens.eq.problem;
-  let total = 0;
+  const along = contents.rows.map((row, r) => (concentrationRows[r] ? 0 : -row.moles / contents.volumeL ** 2));
+  let total = sens.perLnWaterDensity() * lnWaterSlope(p, contents, along, contents.volumeL);
   contents.rows.forEach((row, r) => {
     if (concentrationRows[r]) return;
     for (const s of row.reagent.systems) {

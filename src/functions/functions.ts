@@ -115,7 +115,7 @@ function SPECIES(reagents: any[][], amounts: any[][], units: any[][], volume?: a
 }
 
 /**
- * Every constant the mixture's solve used, with its source: each pKa at the temperature and at the mixture's ionic strength, pKw, A, water density.
+ * Every constant the mixture's solve used, with its source: each pKa at the temperature and at the mixture's ionic strength, pKw, A, the solution density and kg of water per litre.
  * @customfunction CONSTANTS
  * @helpurl https://localhost:3000/help.html#constants
  * @param reagents Reagents, one per row.

@@ -1,7 +1,7 @@
 import { ADDIN_VERSION, CATALOGUE_VERSION, levelLabel } from '../catalogue';
 import {
   apparentPKas, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
-  WATER_RANGE_C, WATER_SOURCES, debyeHuckelA, pHWithStepPKa, fractionsAt, looksLikeFormula, modelWarning, pKw, waterDensityKgPerL, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
+  WATER_RANGE_C, WATER_SOURCES, debyeHuckelA, pHWithStepPKa, fractionsAt, looksLikeFormula, modelWarning, pKw, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
   MAX_REAGENT_TEXT, ProticError, pKaAt, quote, reagentByName, recipeForTarget, resolveReagent, resolveSystem, speciesRows,
   titrantForTarget, titrantUnit, unitToMoles, withTitrant,
 } from '../engine';
@@ -48,7 +48,8 @@ export const CONSTANTS_HEADER = ['constant', 'step', 'at this temperature, I = 0
 
 /**
  * Every constant the mixture's solve used, with its source: each pKa at the temperature, and the apparent value
- * pH − log10([base]/[acid]) at the mixture's own ionic strength under its model; then pKw, A and the water density.
+ * pH − log10([base]/[acid]) at the mixture's own ionic strength under its model; then pKw, A, the solution's density
+ * and the kg of water per litre it leaves (the mol/L → mol/kg factor).
  */
 export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: Cell, temperature?: Cell, model?: Cell): CellScalar[][] {
   const eq = equilibriumOf(mixtureEntry(reagents, amounts, units, volume, temperature, model));
@@ -75,7 +76,11 @@ export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: C
   const water = (name: string, value: number, source: string): CellScalar[] => [name, '', value, '', source, '', '', `${WATER_RANGE_C[0]}–${WATER_RANGE_C[1]}`, 'recalled, not checked', '', ''];
   table.push(water('pKw', finite(pKw(m.temperatureC), 'pKw'), WATER_SOURCES.pKw));
   table.push(water('Debye–Hückel A (kg/mol)^½', debyeHuckelA(m.temperatureC), WATER_SOURCES.debyeHuckelA));
-  table.push(water('water density (kg/L)', waterDensityKgPerL(m.temperatureC), WATER_SOURCES.density));
+  // the solution's own density, and the kg of water per litre it leaves: the mol/L → mol/kg factor of every constant above
+  const d = p.density;
+  const densityLevel = d.solutes.some((x) => x.basis === 'estimate') ? 'recalled, not checked; partly estimated (see source)' : 'recalled, not checked';
+  table.push(['solution density (kg/L)', '', finite(d.densityKgPerL, 'density'), '', d.source, '', '', `${WATER_RANGE_C[0]}–${WATER_RANGE_C[1]}`, densityLevel, '', '']);
+  table.push(['water (kg per L of solution)', '', finite(d.waterKgPerL, 'water content'), '', `solution density − Σ c·M of the solutes; m = c / this (pure water here: ${d.pureWaterKgPerL.toFixed(6)})`, '', '', '', densityLevel, '', '']);
   table.push(['model', `${m.model}, ${m.temperatureC} °C, ionic strength ${eq.ionicStrengthM.toPrecision(4)} mol/L`, '', '', '', '', '', '', '', '', '']);
   return table;
 }
@@ -92,14 +97,15 @@ export function species(reagents: Cell, amounts: Cell, units: Cell, volume?: Cel
   table.push(['pH', finite(eq.pH, 'pH'), '', '', '']);
   table.push(['ionic strength (mol/L)', finite(eq.ionicStrengthM, 'ionic strength'), '', '', '']);
   table.push(['charge-balance residual (relative)', finite(eq.residualRelative, 'residual'), '', '', '']);
-  // The basis a reviewer needs to reproduce the activity column: activity = γ·c/ρw (molal).
-  const rhoW = Math.exp(eq.problem.lnWaterDensity);
+  // The basis a reviewer needs to reproduce the activity column: activity = γ·c/w (molal), w the kg of water per litre.
+  const d = eq.problem.density;
+  const w = Math.exp(eq.problem.lnWaterDensity);
   // under sit γ also carries Σ ε·m (catalogue ε table) and Kw the water activity: both stated, so the column can be reproduced
   const sit = eq.problem.sit;
   const basis = sit
-    ? `log γ = −z²·D(I/ρw) + Σ ε·m (SIT, m = c/ρw), water activity ${Math.exp(sit.lnWaterActivity).toFixed(5)} in Kw`
-    : 'γ from the ionic strength on the molal basis I/ρw';
-  table.push(['model', `${m.model}, ${m.temperatureC} °C; activity = γ·c/ρw, ${basis}, ρw ${rhoW.toFixed(6)} kg/L`, '', '', '']);
+    ? `log γ = −z²·D(I/w) + Σ ε·m (SIT, m = c/w), water activity ${Math.exp(sit.lnWaterActivity).toFixed(5)} in Kw`
+    : 'γ from the ionic strength on the molal basis I/w';
+  table.push(['model', `${m.model}, ${m.temperatureC} °C; activity = γ·c/w, ${basis}, w ${w.toFixed(6)} kg of water per L of solution; solution density ${d.densityKgPerL.toFixed(5)} kg/L (${d.source})`, '', '', '']);
   table.push(['warning', warning === '' ? 'none' : warning, '', '', '']);
   return table;
 }

@@ -51,7 +51,7 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   lines.push({ input: 'final volume', value: volumeL, unit: 'L', limit: volTol, distribution: 'rectangular', u: volTol / RECT, sensitivity: volumeSensitivity(sens, contents, concentrationRows),
     note: concentrationRows.every(Boolean) ? 'rows given as concentrations do not depend on it' : '' });
   lines.push({ input: 'temperature', value: temperatureC, unit: '°C', limit: tTol, distribution: 'rectangular', u: tTol / RECT, sensitivity: sens.perKelvin(),
-    note: 'through each pKa (its ΔrH°, ΔrCp°), pKw, the Debye–Hückel A and the water density' });
+    note: 'through each pKa (its ΔrH°, ΔrCp°), pKw, the Debye–Hückel A and the kg of water per litre (the solution density)' });
   const p = eq.problem;
   p.systems.forEach((s, i) => {
     if (p.totalsM[i] <= 0) return;
