@@ -1,21 +1,20 @@
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
 import type { SheetValue } from '../scripts/lib/sheetEngine';
-import { waterDensityKgPerL } from '../src/engine';
-import { expectMissWithin, solveConcentrations } from './helpers';
+import { expectMissWithin, molarForMolal, solveConcentrations } from './helpers';
 
 // The sit model against measured mean activity coefficients, read as a user would: SPECIES of the pure
 // salt in a spreadsheet (HyperFormula), γ± = √(γ+ γ−) from its activity-coefficient column. The salt is
-// entered at c = m·ρw mol/L, the molality the engine converts back (m = c/ρw).
+// entered at c = m·w mol/L, w the solution's own kg of water per litre, the molality the engine converts back (m = c/w).
 
 const HW = 'Hamer & Wu 1972, J. Phys. Chem. Ref. Data 1, 1047 (as tabulated in the CRC Handbook, "Mean activity coefficients of electrolytes") (from memory)';
 const HCL_CHECK = 'Hamer & Wu 1972 (from memory); HCl agrees with the emf fit log γ± = −0.5115√m/(1 + 1.471√m) + 0.1069 m + … of Acta Phys.-Chim. Sin. (concentrated HCl, 25 °C) within 0.003';
 const RS = 'Robinson & Stokes, Electrolyte Solutions, 2nd ed., appendix 8.10 (NaOH) (from memory)';
 
-const RHO = waterDensityKgPerL(25);
 
 /** γ± of a 1:1 salt at molality m through the cell function SPECIES under sit. */
 function meanGamma(salt: string, cation: string, anion: string, molal: number): number {
-  const v = evaluateSheet([[salt, molal * RHO, 'M', `=PROTIC.SPECIES(A1,B1,C1,1,25,"sit")`]]);
+  const [[, c]] = molarForMolal([[salt, molal]]);
+  const v = evaluateSheet([[salt, c, 'M', `=PROTIC.SPECIES(A1,B1,C1,1,25,"sit")`]]);
   const rows = v.map((r) => r.slice(3)) as SheetValue[][];
   const gamma = (label: string): number => {
     const row = rows.find((r) => r[0] === label);
@@ -61,7 +60,8 @@ describe('known misses', () => {
 const HARNED = 'Harned & Owen 1958, Harned coefficient α(HCl in NaCl) ≈ 0.032 kg/mol at 25 °C (from memory)';
 /** log10 γ± of 1 mmol/kg HCl in NaCl of molality m, from SPECIES under sit. */
 function traceHClLogGamma(m: number): number {
-  const v = evaluateSheet([['NaCl', m * RHO, 'M'], ['HCl', 1e-3 * RHO, 'M'], ['=PROTIC.SPECIES(A1:A2,B1:B2,C1:C2,1,25,"sit")']]);
+  const [[, cNaCl], [, cHCl]] = molarForMolal([['NaCl', m], ['HCl', 1e-3]]);
+  const v = evaluateSheet([['NaCl', cNaCl, 'M'], ['HCl', cHCl, 'M'], ['=PROTIC.SPECIES(A1:A2,B1:B2,C1:C2,1,25,"sit")']]);
   const rows = v.slice(2) as SheetValue[][];
   const g = (label: string): number => rows.find((r) => r[0] === label)?.[3] as number;
   return Math.log10(Math.sqrt(g('H⁺') * g('Cl⁻')));
@@ -91,9 +91,9 @@ const STANDARDS: [string, [string, number][]][] = [
 ];
 describe('sit agrees with Davies within 0.005 pH at I ≤ 0.05 mol/kg (IUPAC standards)', () => {
   test.each(STANDARDS)('%s', (_, molal) => {
-    const rows = molal.map(([r, m]) => [r, m * RHO] as [string, number]);
+    const rows = molarForMolal(molal);
     const davies = solveConcentrations(rows, 25, 'davies'), sit = solveConcentrations(rows, 25, 'sit');
-    expect(davies.ionicStrengthM / RHO).toBeLessThan(0.055);
+    expect(davies.ionicStrengthM / Math.exp(davies.problem.lnWaterDensity)).toBeLessThan(0.055);
     expect(Math.abs(sit.pH - davies.pH)).toBeLessThan(0.005);
   });
 });
@@ -109,7 +109,7 @@ describe('sit against the IUPAC standard values, within 0.015 pH', () => {
     ['0.05 m potassium dihydrogen citrate', [['potassium dihydrogen citrate', 0.05]], 3.776, IUPAC],
     ['0.1 m acetic acid + 0.1 m sodium acetate', [['acetic acid', 0.1], ['sodium acetate', 0.1]], 4.652, `${IUPAC}, secondary (from memory)`],
   ].map(([label, molal, reference, source]) => [label, reference, source, molal]) as [string, number, string, [string, number][]][])('%s: %d (%s)', (_, reference, __, molal) => {
-    const eq = solveConcentrations(molal.map(([r, m]) => [r, m * RHO]), 25, 'sit');
+    const eq = solveConcentrations(molarForMolal(molal), 25, 'sit');
     expect(Math.abs(eq.pH - reference)).toBeLessThan(0.015);
   });
   // Findings: carbonate reads 0.022 low (no published ε for the Na⁺–CO3²⁻ effect beyond −0.08 ± 0.03), Tris 0.021 low
@@ -118,7 +118,7 @@ describe('sit against the IUPAC standard values, within 0.015 pH', () => {
     ['0.025 m NaHCO3 + 0.025 m Na2CO3', [['NaHCO3', 0.025], ['Na2CO3', 0.025]], 10.012, -0.0217, 0.002, IUPAC],
     ['0.01667 m Tris + 0.05 m Tris hydrochloride', [['Tris', 0.01667], ['Tris hydrochloride', 0.05]], 7.699, -0.0210, 0.002, 'NBS SRM 922/923, Durst & Staples 1972, Clin. Chem. 18, 206 (from memory)'],
   ].map(([label, molal, ...rest]) => [label, ...rest, molal]) as [string, number, number, number, string, [string, number][]][])('known miss: %s: %d, measured miss %d ± %d (%s)', (_, reference, measured, margin, __, molal) => {
-    const eq = solveConcentrations(molal.map(([r, m]) => [r, m * RHO]), 25, 'sit');
+    const eq = solveConcentrations(molarForMolal(molal), 25, 'sit');
     expectMissWithin(eq.pH - reference, measured, margin);
   });
 });

@@ -29,7 +29,7 @@ describe('SPECIES under sit reproduces its pH', () => {
     const v = evaluateSheet([['NaH2PO4', 2.4, 'g'], ['Na2HPO4', 4.26, 'g'], ['NaCl', 1, 'M'], ['=PROTIC.SPECIES(A1:A3,B1:B3,C1:C3,1,25,"sit")']]).slice(3);
     const h = v.find((row) => row[0] === 'H⁺') as [string, number, number, number, number];
     const pH = v.find((row) => row[0] === 'pH')?.[1] as number;
-    const rho = Number(/ρw (\d\.\d+) kg\/L/.exec(v.find((row) => row[0] === 'model')?.[1] as string)?.[1]);
+    const rho = Number(/w (\d\.\d+) kg of water per L/.exec(v.find((row) => row[0] === 'model')?.[1] as string)?.[1]);
     expect(Math.abs(-Math.log10((h[3] * h[2]) / rho) - pH)).toBeLessThan(1e-6);
     expect(Math.abs(-Math.log10(h[4]) - pH)).toBeLessThan(1e-9);
   });
