@@ -34,3 +34,30 @@ describe('SPECIES under sit reproduces its pH', () => {
     expect(Math.abs(-Math.log10(h[4]) - pH)).toBeLessThan(1e-9);
   });
 });
+
+describe('sit: a custom system redefined with another charge gets its own ε table', () => {
+  // The species table is shared by problems with the same species list; a custom system's form keys carry its charge,
+  // so a redefinition under the same name cannot reuse the ε pairs (and charge-type estimates) of the old charges.
+  const define = (engine: typeof import('../src/engine'), charge: number): void => {
+    const formula = charge === 0 ? 'C4H3NaO4' : 'C4H4O4';
+    expect(engine.applyCustomDefinitions({ systems: [{ name: 'plant test acid', pKa: [3.5, 6.2], charge, forms: [{ name: 'plant test acid form', formula, protonsLost: 1 }] }] })).toEqual([]);
+  };
+  const pHUnder = (engine: typeof import('../src/engine')): number =>
+    engine.solve(engine.prepareProblem(engine.buildContents([r('plant test acid form', 0.05, 'M', 1), r('NaCl', 1, 'M', 2), r('HCl', 0.02, 'M', 3)], 1), 25, 'sit')).pH;
+
+  test('after the charge-0 definition was solved, the charge +1 one solves as a fresh engine does', () => {
+    const engine = jest.requireActual<typeof import('../src/engine')>('../src/engine');
+    define(engine, 0);
+    pHUnder(engine);
+    define(engine, 1);
+    const afterRedefinition = pHUnder(engine);
+    let fresh = NaN;
+    jest.isolateModules(() => {
+      const clean = jest.requireActual<typeof import('../src/engine')>('../src/engine');
+      define(clean, 1);
+      fresh = pHUnder(clean);
+    });
+    engine.clearCustomDefinitions();
+    expect(Math.abs(afterRedefinition - fresh)).toBeLessThan(1e-9);
+  });
+});

@@ -46,7 +46,8 @@ export interface SolutionDensity {
   waterKgPerL: number;
   /** pure water at the temperature (Kell 1975), kg/L: what waterKgPerL becomes when dilute */
   pureWaterKgPerL: number;
-  solutes: DensitySolute[];
+  /** what the density was summed over: built when first read (SPECIES, CONSTANTS), not for every forward solve */
+  readonly solutes: DensitySolute[];
   /** sentences for WARNINGS: estimated solutes or fits out of range, when they are a large part of the solution */
   warnings: string[];
   /** one line naming the sources, for CONSTANTS and SPECIES */
@@ -86,37 +87,60 @@ function fittedVolumeLPerKg(f: DensityFit, w: number, t: number): number {
   return (1000 * (w + c2 + c3 * t)) / ((c0 * w + c1) * Math.exp(1e-6 * (t + c4) ** 2));
 }
 
-interface Pending { label: string; concentrationM: number; massKgPerL: number; fit?: DensityFit; estimateLPerKg: number }
+/** A solute before it is printed: its label is built only when SPECIES, CONSTANTS or a warning reads it. */
+interface Pending { fit?: DensityFit; first: DensityPartAmount; second?: DensityPartAmount; concentrationM: number; massKgPerL: number; estimateLPerKg: number }
+
+/** Every Pending has the same fields in the same order, so the loops over them see one shape. */
+function pending(fit: DensityFit | undefined, first: DensityPartAmount, second: DensityPartAmount | undefined, concentrationM: number, massKgPerL: number, estimateLPerKg: number): Pending {
+  return { fit, first, second, concentrationM, massKgPerL, estimateLPerKg };
+}
+
+/** A solute's printed name: the fit's formula, or its parts' labels for an estimate. */
+function labelOf(s: Pending): string {
+  if (s.fit) return s.fit.formula;
+  return s.second ? `${s.first.label} ${s.second.label}` : s.first.label;
+}
+
+const estimateOf = (organic: boolean): number => (organic ? DENSITY_ESTIMATE.organicLPerKg : DENSITY_ESTIMATE.inorganicLPerKg);
 
 /** Pairs cations with anions in proportion to their equivalents (each cation's charge shared over the anions). */
-function solutesOf(parts: DensityPartAmount[]): Pending[] {
-  const cations = parts.filter((p) => p.charge > 0 && p.concentrationM > 0);
-  const anions = parts.filter((p) => p.charge < 0 && p.concentrationM > 0);
-  const eqOf = (p: DensityPartAmount): number => Math.abs(p.charge) * p.concentrationM;
-  const totalEq = (cations.reduce((s, p) => s + eqOf(p), 0) + anions.reduce((s, p) => s + eqOf(p), 0)) / 2;
+function solutesOf(parts: readonly DensityPartAmount[]): Pending[] {
+  // one pass sorts the parts by sign; the equivalents of each side are equal when the charges balance
+  const cations: DensityPartAmount[] = [], anions: DensityPartAmount[] = [], neutrals: DensityPartAmount[] = [];
+  let totalEq = 0;
+  for (const p of parts) {
+    if (!(p.concentrationM > 0)) continue;
+    if (p.charge === 0) neutrals.push(p);
+    else {
+      (p.charge > 0 ? cations : anions).push(p);
+      totalEq += Math.abs(p.charge) * p.concentrationM;
+    }
+  }
+  totalEq /= 2;
   const out: Pending[] = [];
-  const estimate = (organic: boolean): number => (organic ? DENSITY_ESTIMATE.organicLPerKg : DENSITY_ESTIMATE.inorganicLPerKg);
   for (const c of cations) {
+    const byAnion = SALT_FITS.get(c.part);
+    const cEq = c.charge * c.concentrationM;
     for (const a of anions) {
-      const eq = (eqOf(c) * eqOf(a)) / totalEq; // equivalents per litre of the salt c–a
-      const fit = SALT_FITS.get(c.part)?.get(a.part);
+      const eq = (cEq * -a.charge * a.concentrationM) / totalEq; // equivalents per litre of the salt c–a
+      const fit = byAnion?.get(a.part);
       if (fit) {
         const units = eq / (fit.parts[0].count * c.charge);
-        out.push({ label: fit.formula, concentrationM: units, massKgPerL: (units * (fitMolarMass.get(fit) as number)) / 1000, fit, estimateLPerKg: estimate(false) });
+        out.push(pending(fit, c, a, units, (units * (fitMolarMass.get(fit) as number)) / 1000, estimateOf(false)));
       } else {
         const massGPerL = eq * (c.molarMassGPerMol / c.charge + a.molarMassGPerMol / -a.charge);
-        out.push({ label: `${c.label} ${a.label}`, concentrationM: eq / c.charge, massKgPerL: massGPerL / 1000, estimateLPerKg: estimate(c.organic || a.organic) });
+        out.push(pending(undefined, c, a, eq / c.charge, massGPerL / 1000, estimateOf(c.organic || a.organic)));
       }
     }
   }
   // an ion left without partners (a charge the parts do not balance) still occupies volume: estimated alone
   if (cations.length === 0 || anions.length === 0) {
-    for (const p of [...cations, ...anions]) out.push({ label: p.label, concentrationM: p.concentrationM, massKgPerL: (p.concentrationM * p.molarMassGPerMol) / 1000, estimateLPerKg: estimate(p.organic) });
+    for (const p of [...cations, ...anions]) out.push(pending(undefined, p, undefined, p.concentrationM, (p.concentrationM * p.molarMassGPerMol) / 1000, estimateOf(p.organic)));
   }
-  for (const n of parts.filter((p) => p.charge === 0 && p.concentrationM > 0)) {
+  for (const n of neutrals) {
     const fit = FIT_BY_PARTS.get(n.part);
     const massKgPerL = fit ? (n.concentrationM * (fitMolarMass.get(fit) as number)) / 1000 : (n.concentrationM * n.molarMassGPerMol) / 1000;
-    out.push({ label: fit ? fit.formula : n.label, concentrationM: n.concentrationM, massKgPerL, fit, estimateLPerKg: estimate(n.organic) });
+    out.push(pending(fit, n, undefined, n.concentrationM, massKgPerL, estimateOf(n.organic)));
   }
   return out;
 }
@@ -139,15 +163,30 @@ const fmt = (x: number, digits = 3): string => String(Number(x.toPrecision(digit
  * @example solutionDensity([{ part: 'Na+', label: 'Na⁺', charge: 1, concentrationM: 1, molarMassGPerMol: 22.99, organic: false },
  *   { part: 'Cl-', label: 'Cl⁻', charge: -1, concentrationM: 1, molarMassGPerMol: 35.45, organic: false }], 25).densityKgPerL // ≈ 1.0369
  */
-export function solutionDensity(parts: DensityPartAmount[], temperatureC: number): SolutionDensity {
+export function solutionDensity(parts: readonly DensityPartAmount[], temperatureC: number): SolutionDensity {
   const rhoW = waterDensityKgPerL(temperatureC);
-  const solutes = solutesOf(parts);
-  const soluteMass = solutes.reduce((s, x) => s + x.massKgPerL, 0);
-  const { rho, volumes } = solutes.length === 0 ? { rho: rhoW, volumes: [] } : settleDensity(solutes, soluteMass, rhoW, temperatureC);
-  const w = soluteMass / rho;
-  const out: DensitySolute[] = solutes.map((s, i) => {
-    const v = volumes[i];
-    const solute: DensitySolute = { label: s.label, concentrationM: s.concentrationM, massGPerL: s.massKgPerL * 1000, volumeLPerKg: v.lPerKg, basis: v.fitted ? 'fit' : 'estimate',
+  const pending = solutesOf(parts);
+  let soluteMass = 0;
+  for (const x of pending) soluteMass += x.massKgPerL;
+  const rho = pending.length === 0 ? rhoW : settleDensity(pending, soluteMass, rhoW, temperatureC);
+  const waterKgPerL = rho - soluteMass;
+  // the solutes' table and the source line are text for CONSTANTS, SPECIES and warnings: built when first read
+  let solutes: DensitySolute[] | undefined, source: string | undefined;
+  const solutesNow = (): DensitySolute[] => (solutes ??= describeSolutes(pending, soluteMass / rho, temperatureC));
+  // a warning needs solutes of at least LARGE_SOLUTE_G_PER_L: below that in all, there is none to look for
+  const warnings = soluteMass * 1000 < LARGE_SOLUTE_G_PER_L ? [] : densityWarnings(solutesNow(), rhoW, waterKgPerL);
+  return {
+    temperatureC, densityKgPerL: rho, waterKgPerL, pureWaterKgPerL: rhoW, warnings, parts,
+    get solutes(): DensitySolute[] { return solutesNow(); },
+    get source(): string { return (source ??= sourceText(solutesNow())); },
+  };
+}
+
+/** The solutes as SPECIES and CONSTANTS print them, at solute mass fraction w: volume, basis, source and range. */
+function describeSolutes(pending: Pending[], w: number, temperatureC: number): DensitySolute[] {
+  return pending.map((s) => {
+    const v = volumeOf(s, w, temperatureC);
+    const solute: DensitySolute = { label: labelOf(s), concentrationM: s.concentrationM, massGPerL: s.massKgPerL * 1000, volumeLPerKg: v.lPerKg, basis: v.fitted ? 'fit' : 'estimate',
       source: v.fitted && s.fit ? s.fit.source : DENSITY_ESTIMATE.source };
     const f = s.fit;
     if (f && v.fitted && (temperatureC < f.rangeC[0] || temperatureC > f.rangeC[1] || w > f.maxMassFraction)) {
@@ -155,13 +194,6 @@ export function solutionDensity(parts: DensityPartAmount[], temperatureC: number
     }
     return solute;
   });
-  const waterKgPerL = rho - soluteMass;
-  // the source line is text for CONSTANTS and SPECIES only: built when first read, not for every forward solve
-  let source: string | undefined;
-  return {
-    temperatureC, densityKgPerL: rho, waterKgPerL, pureWaterKgPerL: rhoW, solutes: out, warnings: densityWarnings(out, rhoW, waterKgPerL), parts,
-    get source(): string { return (source ??= sourceText(out)); },
-  };
 }
 
 /** A density candidate worth evaluating: finite and above zero. */
@@ -174,10 +206,14 @@ function usableDensity(rho: number): boolean {
  * by substitution and secant steps to 1e−12 kg/L. Solutes that would fill the litre by themselves have no solution: a coded failure
  * (no_convergence, which an inverse search backs off from at its limit), as is a balance that does not settle.
  */
-function settleDensity(solutes: Pending[], soluteMass: number, rhoW: number, temperatureC: number): { rho: number; volumes: { lPerKg: number; fitted: boolean }[] } {
+let scratch = new Float64Array(64);
+
+function settleDensity(solutes: Pending[], soluteMass: number, rhoW: number, temperatureC: number): number {
   // the fits' temperature factors do not depend on the composition: computed once, so each pass is arithmetic
   const n = solutes.length;
-  const c0 = new Float64Array(n), c1 = new Float64Array(n), shift = new Float64Array(n), mass = new Float64Array(n);
+  if (scratch.length < 4 * n) scratch = new Float64Array(8 * n);
+  // views into one reused buffer: the balance is evaluated synchronously and never re-entered
+  const c0 = scratch.subarray(0, n), c1 = scratch.subarray(n, 2 * n), shift = scratch.subarray(2 * n, 3 * n), mass = scratch.subarray(3 * n, 4 * n);
   solutes.forEach((s, i) => {
     mass[i] = s.massKgPerL;
     if (!s.fit) return;
@@ -212,10 +248,7 @@ function settleDensity(solutes: Pending[], soluteMass: number, rhoW: number, tem
     previous = rho; gPrevious = g;
     rho = next;
     g = balance(rho);
-    if (Math.abs(g) <= 1e-12 && Math.abs(rho - previous) <= 1e-9) {
-      const x = soluteMass / rho;
-      return { rho, volumes: solutes.map((_, i) => volumeOf(solutes[i], x, temperatureC)) };
-    }
+    if (Math.abs(g) <= 1e-12 && Math.abs(rho - previous) <= 1e-9) return rho;
   }
   return fail({ code: 'no_convergence', argument: 'amounts', received: 'a solution density that did not settle', expected: 'a composition within the density fits; please report this case' });
 }
@@ -250,18 +283,20 @@ function sourceText(solutes: DensitySolute[]): string {
 export interface SystemAmount { system: AcidSystem; totalM: number; lnKa: Float64Array }
 
 const H_MASS = compositionMassGPerMol({ H: 1 });
-const ionMass = new Map<string, { massGPerMol: number; organic: boolean }>();
-const topMass = new WeakMap<AcidSystem, { massGPerMol: number; organic: boolean }>();
+/** What a part is, apart from its amount: looked up once per ion id or acid form, then reused by every solve. */
+type PartInfo = Omit<DensityPartAmount, 'concentrationM'>;
+const ionInfo = new Map<string, PartInfo>();
+const formInfo = new WeakMap<AcidSystem, PartInfo[]>();
 
 function ionPart(id: string, charge: number, concentrationM: number): DensityPartAmount {
-  let m = ionMass.get(id);
-  if (!m) {
+  let info = ionInfo.get(id);
+  if (!info) {
     // the ion's formula is its id without the charge: Na+ → Na, ClO4- → ClO4, Ca2+ → Ca
     const composition = parseFormula(id.replace(/\d*[+-]$/, '')).composition;
-    m = { massGPerMol: compositionMassGPerMol(composition), organic: (composition.C ?? 0) > 0 };
-    ionMass.set(id, m);
+    info = { part: id, label: printedIon(id), charge, molarMassGPerMol: compositionMassGPerMol(composition), organic: (composition.C ?? 0) > 0 };
+    ionInfo.set(id, info);
   }
-  return { part: id, label: printedIon(id), charge, concentrationM, molarMassGPerMol: m.massGPerMol, organic: m.organic };
+  return { part: info.part, label: info.label, charge, concentrationM, molarMassGPerMol: info.molarMassGPerMol, organic: info.organic };
 }
 
 const SUPERSCRIPT: Record<string, string> = { '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹', '+': '⁺', '-': '⁻' };
@@ -270,52 +305,90 @@ function printedIon(id: string): string {
   return id.replace(/(\d*[+-])$/, (charge) => charge.split('').map((ch) => SUPERSCRIPT[ch]).join(''));
 }
 
-function formPart(system: AcidSystem, protonsLost: number, concentrationM: number): DensityPartAmount {
-  let top = topMass.get(system);
-  if (!top) {
+function formsOf(system: AcidSystem): PartInfo[] {
+  let forms = formInfo.get(system);
+  if (!forms) {
     // a user-defined system may have no formula: its forms get the stated molar mass of the estimate
     const composition = system.formulaMostProtonated ? parseFormula(system.formulaMostProtonated).composition : undefined;
-    top = composition ? { massGPerMol: compositionMassGPerMol(composition), organic: (composition.C ?? 0) > 0 } : { massGPerMol: DENSITY_ESTIMATE.unknownMolarMassGPerMol, organic: true };
-    topMass.set(system, top);
+    const top = composition ? { massGPerMol: compositionMassGPerMol(composition), organic: (composition.C ?? 0) > 0 } : { massGPerMol: DENSITY_ESTIMATE.unknownMolarMassGPerMol, organic: true };
+    forms = Array.from({ length: system.steps.length + 1 }, (_, protonsLost) => ({
+      part: `${system.id}#${protonsLost}`, label: system.forms[protonsLost] ?? `${system.name} form ${protonsLost}`, charge: system.chargeMostProtonated - protonsLost,
+      molarMassGPerMol: top.massGPerMol - protonsLost * H_MASS, organic: top.organic,
+    }));
+    formInfo.set(system, forms);
   }
-  return {
-    part: `${system.id}#${protonsLost}`, label: system.forms[protonsLost] ?? `${system.name} form ${protonsLost}`, charge: system.chargeMostProtonated - protonsLost,
-    concentrationM, molarMassGPerMol: top.massGPerMol - protonsLost * H_MASS, organic: top.organic,
-  };
+  return forms;
 }
+
+function formPart(system: AcidSystem, protonsLost: number, concentrationM: number): DensityPartAmount {
+  const f = formsOf(system)[protonsLost];
+  return { part: f.part, label: f.label, charge: f.charge, concentrationM, molarMassGPerMol: f.molarMassGPerMol, organic: f.organic };
+}
+
+/**
+ * The order in which the systems' steps give up protons, strongest acid first, as index·8 + step (problem.ts's
+ * stepOrder, computed once per problem and passed in by it).
+ */
+export function stepOrderOf(systems: readonly { lnKa: Float64Array }[]): Int32Array {
+  // one system whose steps are strongest first (pKa increasing, as at 25 °C): an order shared by every such problem
+  if (systems.length === 1 && descending(systems[0].lnKa)) return ONE_SYSTEM_ORDER[systems[0].lnKa.length] ?? sortedStepOrder(systems);
+  return sortedStepOrder(systems);
+}
+
+function descending(xs: Float64Array): boolean {
+  for (let k = 1; k < xs.length; k++) if (!(xs[k] < xs[k - 1])) return false;
+  return true;
+}
+
+const ONE_SYSTEM_ORDER = Array.from({ length: 8 }, (_, n) => Int32Array.from({ length: n }, (_, k) => k));
+
+function sortedStepOrder(systems: readonly { lnKa: Float64Array }[]): Int32Array {
+  const order: number[] = [];
+  systems.forEach((s, i) => s.lnKa.forEach((_, k) => order.push(i * 8 + k)));
+  order.sort((a, b) => systems[b >> 3].lnKa[b & 7] - systems[a >> 3].lnKa[a & 7]);
+  return Int32Array.from(order);
+}
+
+let lostScratch = new Float64Array(32);
 
 /**
  * The parts of a solution by stoichiometry, for its density: the protons the systems must lose (strong-ion charge
  * plus their most protonated charges) go to the steps strongest acid first; what is left over is H⁺ (strong acid in
  * excess) or OH⁻ (strong base in excess). The density moves little with the exact speciation, and this keeps it a
  * property of the composition, fixed before the solve.
+ * @example stoichiometricParts([], [{ id: 'Na+', charge: 1, concentrationM: 0.1 }, { id: 'Cl-', charge: -1, concentrationM: 0.1 }], [])
+ *   // → Na⁺ 0.1 mol/L and Cl⁻ 0.1 mol/L
  */
-export function stoichiometricParts(systems: SystemAmount[], ions: { id: string; charge: number; concentrationM: number }[], neutrals: DensityPartAmount[]): DensityPartAmount[] {
+export function stoichiometricParts(systems: SystemAmount[], ions: readonly { id: string; charge: number; concentrationM: number }[], neutrals: DensityPartAmount[],
+  stepOrder: Int32Array = stepOrderOf(systems)): DensityPartAmount[] {
   let remaining = 0;
   for (const ion of ions) remaining += ion.charge * ion.concentrationM;
   for (const s of systems) remaining += s.totalM * s.system.chargeMostProtonated;
-  const parts: DensityPartAmount[] = ions.map((ion) => ionPart(ion.id, ion.charge, ion.concentrationM));
-  // lost[i][k]: mol/L of system i that has lost its step k (so at least k + 1 protons)
-  const lost = systems.map((s) => new Float64Array(s.lnKa.length));
-  const steps = systems.flatMap((s, i) => Array.from(s.lnKa, (lnKa, k) => ({ i, k, lnKa })));
-  steps.sort((a, b) => b.lnKa - a.lnKa);
-  for (const st of steps) {
-    if (!(remaining > 0)) break;
-    const available = st.k === 0 ? systems[st.i].totalM : lost[st.i][st.k - 1];
-    const taken = Math.min(remaining, Math.max(0, available - lost[st.i][st.k]));
-    lost[st.i][st.k] += taken;
+  const parts: DensityPartAmount[] = [];
+  for (const ion of ions) parts.push(ionPart(ion.id, ion.charge, ion.concentrationM));
+  // lost[i·8 + k]: mol/L of system i that has lost its step k (so at least k + 1 protons)
+  if (lostScratch.length < systems.length * 8) lostScratch = new Float64Array(systems.length * 16);
+  // reused: a typed array over 64 bytes is allocated outside the heap, and this runs once per prepared problem
+  const lost = lostScratch;
+  lost.fill(0, 0, systems.length * 8);
+  for (let o = 0; o < stepOrder.length && remaining > 0; o++) {
+    const code = stepOrder[o], i = code >> 3, k = code & 7;
+    const available = k === 0 ? systems[i].totalM : lost[code - 1];
+    const taken = Math.min(remaining, Math.max(0, available - lost[code]));
+    lost[code] += taken;
     remaining -= taken;
   }
-  systems.forEach((s, i) => {
-    const n = s.lnKa.length;
+  for (let i = 0; i < systems.length; i++) {
+    const s = systems[i], n = s.lnKa.length;
     for (let j = 0; j <= n; j++) {
-      const atLeastJ = j === 0 ? s.totalM : lost[i][j - 1];
-      const atLeastNext = j === n ? 0 : lost[i][j];
+      const atLeastJ = j === 0 ? s.totalM : lost[i * 8 + j - 1];
+      const atLeastNext = j === n ? 0 : lost[i * 8 + j];
       const c = atLeastJ - atLeastNext;
       if (c > 0) parts.push(formPart(s.system, j, c));
     }
-  });
+  }
   if (remaining < 0) parts.push(ionPart('H+', 1, -remaining));
-  if (remaining > 0) parts.push({ ...ionPart('OH-', -1, remaining) });
-  return [...parts, ...neutrals];
+  if (remaining > 0) parts.push(ionPart('OH-', -1, remaining));
+  for (const n of neutrals) parts.push(n);
+  return parts;
 }

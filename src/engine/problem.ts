@@ -1,9 +1,9 @@
-import type { AcidSystem } from '../catalogue';
+import type { AcidSystem, Reagent } from '../catalogue';
 import { strongIonById } from '../catalogue';
 import { fail } from './failure';
 import type { ActivityModel } from './activity';
-import { stoichiometricParts, solutionDensity } from './density';
-import type { DensityPartAmount, SolutionDensity } from './density';
+import { stepOrderOf, stoichiometricParts, solutionDensity } from './density';
+import type { DensityPartAmount, SolutionDensity, SystemAmount } from './density';
 import { compositionMassGPerMol, parseFormula } from './formula';
 import type { Contents } from './mixture';
 import { systemFor } from './registry';
@@ -70,7 +70,8 @@ interface TemperatureConstants {
 
 // Constants depend on temperature only: computed once per temperature and system.
 const waterCache = new Map<number, TemperatureConstants>();
-const lnKaCache = new Map<string, Float64Array>();
+// per catalogue system, by temperature (°C)
+const lnKaCache = new WeakMap<AcidSystem, Map<number, Float64Array>>();
 
 function waterConstants(temperatureC: number): TemperatureConstants {
   let c = waterCache.get(temperatureC);
@@ -90,12 +91,15 @@ export function checkSystemRange(system: AcidSystem, temperatureC: number, argum
 }
 
 export function lnKaAt(system: AcidSystem, temperatureC: number): Float64Array {
-  const key = `${system.id}${system.custom ? '*' : ''}@${temperatureC}`;
-  let lnKa = lnKaCache.get(key);
-  if (!lnKa || system.custom) {
+  // a custom system may be redefined under the same id: computed each time
+  if (system.custom) return Float64Array.from(system.steps, (step) => -pKaAt(step, temperatureC) * Math.LN10);
+  let byTemperature = lnKaCache.get(system);
+  if (!byTemperature) lnKaCache.set(system, (byTemperature = new Map()));
+  let lnKa = byTemperature.get(temperatureC);
+  if (!lnKa) {
     lnKa = Float64Array.from(system.steps, (step) => -pKaAt(step, temperatureC) * Math.LN10);
-    if (lnKaCache.size > 50000) lnKaCache.clear();
-    lnKaCache.set(key, lnKa);
+    if (byTemperature.size > 5000) byTemperature.clear();
+    byTemperature.set(temperatureC, lnKa);
   }
   return lnKa;
 }
@@ -138,11 +142,14 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
     checkConcentration(id, concentrationM);
     ions.push({ id, charge: ion.charge, concentrationM });
   }
-  const density = solutionDensity(stoichiometricParts(systems.map((s, i) => ({ system: s.system, totalM: totals[i], lnKa: s.lnKa })), ions, excipientParts(contents)), temperatureC);
+  const stepOrder = stepOrderOf(systems);
+  const amounts: SystemAmount[] = [];
+  for (let i = 0; i < systems.length; i++) amounts.push({ system: systems[i].system, totalM: totals[i], lnKa: systems[i].lnKa });
+  const density = solutionDensity(stoichiometricParts(amounts, ions, excipientParts(contents), stepOrder), temperatureC);
   const problem: Problem = {
     temperatureC, model, debyeHuckelA: water.debyeHuckelA, lnWaterDensity: Math.log(density.waterKgPerL), density, lnKw: water.lnKw,
     systems, totalsM: Float64Array.from(totals), ions, strongChargeM: 0, strongZ2M: 0, lnGammaZ2: 0, lnKwc: 0, evaluations: 0,
-    stepOrder: stepOrderOf(systems),
+    stepOrder,
     notes: [...(contents.notes ?? []), ...density.warnings],
     // always present, so every problem has one shape for the solver's hot loops
     sit: undefined,
@@ -153,25 +160,30 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
   return problem;
 }
 
+const excipientInfoCache = new WeakMap<Reagent, { part: string; molarMassGPerMol: number; organic: boolean }>();
+/** An excipient's density part, worked out once per reagent. */
+function excipientInfo(reagent: Reagent): { part: string; molarMassGPerMol: number; organic: boolean } {
+  let info = excipientInfoCache.get(reagent);
+  if (!info) {
+    const composition = parseFormula(reagent.formula).composition;
+    // a mixture of molecules (polysorbates) weighs its nominal molar mass, as its amount was reckoned with
+    const molarMass = reagent.excipient?.nominalMolarMass && reagent.handbookMolarMass ? reagent.handbookMolarMass.gPerMol : compositionMassGPerMol(composition);
+    info = { part: `excipient:${reagent.id}`, molarMassGPerMol: molarMass, organic: (composition.C ?? 0) > 0 };
+    excipientInfoCache.set(reagent, info);
+  }
+  return info;
+}
+
 /** Excipient rows, which release nothing, as neutral solutes of the density (anhydrous: hydrate water is water). */
 export function excipientParts(contents: Contents): DensityPartAmount[] {
   const parts: DensityPartAmount[] = [];
   for (const row of contents.rows) {
     const reagent = row.reagent;
     if (!reagent.excipient || !(row.moles > 0)) continue;
-    const composition = parseFormula(reagent.formula).composition;
-    // a mixture of molecules (polysorbates) weighs its nominal molar mass, as its amount was reckoned with
-    const molarMass = reagent.excipient.nominalMolarMass && reagent.handbookMolarMass ? reagent.handbookMolarMass.gPerMol : compositionMassGPerMol(composition);
-    parts.push({ part: `excipient:${reagent.id}`, label: reagent.name, charge: 0, concentrationM: row.moles / contents.volumeL, molarMassGPerMol: molarMass, organic: (composition.C ?? 0) > 0 });
+    const info = excipientInfo(reagent);
+    parts.push({ part: info.part, label: reagent.name, charge: 0, concentrationM: row.moles / contents.volumeL, molarMassGPerMol: info.molarMassGPerMol, organic: info.organic });
   }
   return parts;
-}
-
-function stepOrderOf(systems: PreparedSystem[]): Int32Array {
-  const order: number[] = [];
-  systems.forEach((s, i) => s.lnKa.forEach((_, k) => order.push(i * 8 + k)));
-  order.sort((a, b) => systems[b >> 3].lnKa[b & 7] - systems[a >> 3].lnKa[a & 7]);
-  return Int32Array.from(order);
 }
 
 export function updateIonSums(problem: Problem): void {

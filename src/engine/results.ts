@@ -41,6 +41,14 @@ export function speciesRows(eq: Equilibrium): SpeciesRow[] {
 
 /** An ion id as it is printed: Mg2+ → Mg²⁺, Cl- → Cl⁻. */
 export function ionLabel(id: string): string {
+  let label = ionLabels.get(id);
+  if (label === undefined) ionLabels.set(id, (label = printedIonLabel(id)));
+  return label;
+}
+// printed once per ion id: SPECIES prints every ion of every mixture
+const ionLabels = new Map<string, string>();
+
+function printedIonLabel(id: string): string {
   return id.replace(/(\d*)\+$/, (_, n) => `${supDigits(n)}⁺`).replace(/(\d*)-$/, (_, n) => `${supDigits(n)}⁻`);
 }
 
@@ -95,7 +103,7 @@ function sitDeparture(eq: Equilibrium): { pH: number } | undefined {
 function sitSpeciesLabel(p: Problem, key: string): string {
   const slash = key.lastIndexOf('/');
   if (slash < 0) return ionLabel(key);
-  const s = p.systems.find((x) => x.system.id === key.slice(0, slash).replace(/\*$/, ''));
+  const s = p.systems.find((x) => x.system.id === key.slice(0, slash).replace(/\*-?\d*$/, ''));
   const j = Number(key.slice(slash + 1));
   return s?.system.forms[j] ?? key;
 }

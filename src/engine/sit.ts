@@ -43,14 +43,37 @@ export interface SitState {
   all: Float64Array;
 }
 
-interface PairTable { pairA: Int32Array; pairB: Int32Array; pairLnEps: Float64Array; estimated: EstimatedPair[] }
-// the pair table depends only on which species a problem has (catalogue ε): one per species list
-const pairCache = new Map<string, PairTable>();
+/** What a species list fixes once and for all: keys, charges, where each system's forms start, and the ε pairs. */
+interface SpeciesTable {
+  keys: string[]; charges: Float64Array; formStart: Int32Array; nVariable: number;
+  pairA: Int32Array; pairB: Int32Array; pairLnEps: Float64Array; estimated: EstimatedPair[];
+}
+// one table per species list (catalogue ε), found by walking the list's keys (strings made once per system or ion,
+// so each step is a lookup of an already-hashed string, and nothing is built for a list seen before)
+interface SpeciesNode { next: Map<string, SpeciesNode>; table?: SpeciesTable }
+let speciesRoot: SpeciesNode = { next: new Map() };
+let speciesTables = 0;
 
-function pairTable(keys: string[], charges: number[]): PairTable {
-  const cacheKey = keys.join('|');
-  const cached = pairCache.get(cacheKey);
-  if (cached) return cached;
+function child(node: SpeciesNode, key: string): SpeciesNode {
+  let c = node.next.get(key);
+  if (!c) { c = { next: new Map() }; node.next.set(key, c); }
+  return c;
+}
+
+function speciesTable(problem: Problem): SpeciesTable {
+  let node = child(child(speciesRoot, 'H+'), 'OH-');
+  for (const s of problem.systems) for (const key of formKeysOf(s.system, s.lnCumK.length)) node = child(node, key);
+  node = child(node, '|');
+  for (const ion of problem.ions) node = child(node, ion.id);
+  if (node.table) return node.table;
+  const keys = ['H+', 'OH-'], charges = [1, -1];
+  const formStart = new Int32Array(problem.systems.length);
+  problem.systems.forEach((s, i) => {
+    formStart[i] = keys.length;
+    formKeysOf(s.system, s.lnCumK.length).forEach((key, j) => { keys.push(key); charges.push(s.z0 - j); });
+  });
+  const nVariable = keys.length;
+  for (const ion of problem.ions) { keys.push(ion.id); charges.push(ion.charge); }
   const n = keys.length;
   const pairA: number[] = [], pairB: number[] = [], pairLnEps: number[] = [];
   const estimated: EstimatedPair[] = [];
@@ -65,30 +88,40 @@ function pairTable(keys: string[], charges: number[]): PairTable {
       if (epsilon !== 0) { pairA.push(a); pairB.push(b); pairLnEps.push(Math.LN10 * epsilon); }
     }
   }
-  const table = { pairA: Int32Array.from(pairA), pairB: Int32Array.from(pairB), pairLnEps: Float64Array.from(pairLnEps), estimated };
-  if (pairCache.size > 5000) pairCache.clear();
-  pairCache.set(cacheKey, table);
+  const table: SpeciesTable = { keys, charges: Float64Array.from(charges), formStart, nVariable,
+    pairA: Int32Array.from(pairA), pairB: Int32Array.from(pairB), pairLnEps: Float64Array.from(pairLnEps), estimated };
+  if (++speciesTables > 5000) { speciesRoot = { next: new Map() }; speciesTables = 0; }
+  node.table = table;
   return table;
 }
 
-/** Builds the SIT state for a prepared problem (ε looked up once per species list; concentrations are read at each refresh). */
+// a system's form keys (`phosphate/2`; a custom system's id may be reused with other data, so `id*z0/j` with its
+// most protonated charge, on which the charge-type estimates depend; its forms carry no published ε), made once per system
+const formKeys = new WeakMap<object, string[]>();
+function formKeysOf(system: Problem['systems'][number]['system'], forms: number): string[] {
+  let keys = formKeys.get(system);
+  if (!keys || keys.length !== forms) {
+    keys = Array.from({ length: forms }, (_, j) => `${system.id}${system.custom ? `*${system.chargeMostProtonated}` : ''}/${j}`);
+    formKeys.set(system, keys);
+  }
+  return keys;
+}
+
+/**
+ * Builds the SIT state for a prepared problem: the species list's table (keys, charges, ε pairs) is shared by every
+ * problem with that list; the offsets and scratch are the problem's own.
+ * @example prepareSit(prepareProblem(contents, 25, 'sit')).estimated // the charge-type ε estimates it uses
+ */
 export function prepareSit(problem: Problem): SitState {
-  const keys = ['H+', 'OH-'], charges = [1, -1];
-  const formStart = new Int32Array(problem.systems.length);
-  problem.systems.forEach((s, i) => {
-    formStart[i] = keys.length;
-    // a custom system's id may be reused with other data: its forms carry no published ε anyway
-    for (let j = 0; j < s.lnCumK.length; j++) { keys.push(`${s.system.id}${s.system.custom ? '*' : ''}/${j}`); charges.push(s.z0 - j); }
-  });
-  const nVariable = keys.length;
-  for (const ion of problem.ions) { keys.push(ion.id); charges.push(ion.charge); }
-  const n = keys.length;
-  const table = pairTable(keys, charges);
+  const t = speciesTable(problem);
+  const n = t.keys.length, v = t.nVariable;
+  // one buffer for the four arrays: a typed array over 64 bytes is allocated outside the heap, at several times the cost
+  const buffer = new Float64Array(v + 3 * n);
   return {
-    formStart, nVariable, charges: Float64Array.from(charges), keys, estimated: table.estimated,
-    pairA: table.pairA, pairB: table.pairB, pairLnEps: table.pairLnEps, inverseRho: Math.exp(-problem.lnWaterDensity),
-    offset: new Float64Array(nVariable), lnWaterActivity: 0, next: new Float64Array(n), nextLnWaterActivity: 0,
-    molal: new Float64Array(n), all: new Float64Array(n),
+    formStart: t.formStart, nVariable: v, charges: t.charges, keys: t.keys, estimated: t.estimated,
+    pairA: t.pairA, pairB: t.pairB, pairLnEps: t.pairLnEps, inverseRho: Math.exp(-problem.lnWaterDensity),
+    offset: buffer.subarray(0, v), lnWaterActivity: 0, next: buffer.subarray(v, v + n), nextLnWaterActivity: 0,
+    molal: buffer.subarray(v + n, v + 2 * n), all: buffer.subarray(v + 2 * n, v + 3 * n),
   };
 }
 
