@@ -2,6 +2,7 @@ import { DENSITY_ESTIMATE, DENSITY_FITS } from '../catalogue';
 import type { AcidSystem, DensityFit } from '../catalogue';
 import { fail } from './failure';
 import { parseFormula, compositionMassGPerMol } from './formula';
+import { KeyTrie } from './keyTrie';
 import { WATER_SOURCES, waterDensityKgPerL } from './water';
 
 // The density of a solution from its composition, and from it the kilograms of water per litre of solution, which
@@ -178,7 +179,7 @@ export function solutionDensity(parts: readonly DensityPartAmount[], temperature
   return {
     temperatureC, densityKgPerL: rho, waterKgPerL, pureWaterKgPerL: rhoW, warnings, parts,
     get solutes(): DensitySolute[] { return solutesNow(); },
-    get source(): string { return (source ??= sourceText(solutesNow())); },
+    get source(): string { return (source ??= sourceOf(pending, soluteMass / rho, temperatureC, solutesNow)); },
   };
 }
 
@@ -268,6 +269,21 @@ function densityWarnings(solutes: DensitySolute[], rhoW: number, waterKgPerL: nu
     warnings.push(`density: no density data for ${estimated.map((s) => s.label).join(', ')} (${fmt(estimatedMass)} g/L): their volume is a stated estimate (${DENSITY_ESTIMATE.source}), so the kg of water per litre, and so every molality, is uncertain by about ±${fmt(percent, 2)} %`);
   }
   return warnings;
+}
+
+// the source line depends only on which solutes there are and whether each was fitted: one text per such list
+const SOURCE_TEXTS = new KeyTrie<string>(2000);
+
+/** The source line of a density, from the cache when the same solutes were summed before. */
+function sourceOf(pending: Pending[], w: number, temperatureC: number, solutes: () => DensitySolute[]): string {
+  let node = SOURCE_TEXTS.start();
+  for (const s of pending) {
+    // keyed by what the line prints (a custom form's label may change under the same part key)
+    node = SOURCE_TEXTS.step(node, s.fit ? s.fit.formula : s.first.label);
+    node = SOURCE_TEXTS.step(node, s.second && !s.fit ? s.second.label : '');
+    node = SOURCE_TEXTS.step(node, volumeOf(s, w, temperatureC).fitted ? 'fit' : 'estimate');
+  }
+  return node.value ?? SOURCE_TEXTS.set(node, sourceText(solutes()));
 }
 
 function sourceText(solutes: DensitySolute[]): string {

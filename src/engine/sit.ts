@@ -1,4 +1,5 @@
 import { SIT_ESTIMATE_UNCERTAINTY, sitEpsilonRow, sitEstimate } from '../catalogue';
+import { KeyTrie } from './keyTrie';
 import type { Problem } from './problem';
 
 // The specific ion interaction theory (Brønsted–Guggenheim–Scatchard form, as the NEA TDB reviews use it):
@@ -48,24 +49,15 @@ interface SpeciesTable {
   keys: string[]; charges: Float64Array; formStart: Int32Array; nVariable: number;
   pairA: Int32Array; pairB: Int32Array; pairLnEps: Float64Array; estimated: EstimatedPair[];
 }
-// one table per species list (catalogue ε), found by walking the list's keys (strings made once per system or ion,
-// so each step is a lookup of an already-hashed string, and nothing is built for a list seen before)
-interface SpeciesNode { next: Map<string, SpeciesNode>; table?: SpeciesTable }
-let speciesRoot: SpeciesNode = { next: new Map() };
-let speciesTables = 0;
-
-function child(node: SpeciesNode, key: string): SpeciesNode {
-  let c = node.next.get(key);
-  if (!c) { c = { next: new Map() }; node.next.set(key, c); }
-  return c;
-}
+// one table per species list (catalogue ε): ion ids and form keys are made once, so the walk builds nothing
+const speciesTables = new KeyTrie<SpeciesTable>(5000);
 
 function speciesTable(problem: Problem): SpeciesTable {
-  let node = child(child(speciesRoot, 'H+'), 'OH-');
-  for (const s of problem.systems) for (const key of formKeysOf(s.system, s.lnCumK.length)) node = child(node, key);
-  node = child(node, '|');
-  for (const ion of problem.ions) node = child(node, ion.id);
-  if (node.table) return node.table;
+  let node = speciesTables.step(speciesTables.step(speciesTables.start(), 'H+'), 'OH-');
+  for (const s of problem.systems) for (const key of formKeysOf(s.system, s.lnCumK.length)) node = speciesTables.step(node, key);
+  node = speciesTables.step(node, '|');
+  for (const ion of problem.ions) node = speciesTables.step(node, ion.id);
+  if (node.value) return node.value;
   const keys = ['H+', 'OH-'], charges = [1, -1];
   const formStart = new Int32Array(problem.systems.length);
   problem.systems.forEach((s, i) => {
@@ -90,9 +82,7 @@ function speciesTable(problem: Problem): SpeciesTable {
   }
   const table: SpeciesTable = { keys, charges: Float64Array.from(charges), formStart, nVariable,
     pairA: Int32Array.from(pairA), pairB: Int32Array.from(pairB), pairLnEps: Float64Array.from(pairLnEps), estimated };
-  if (++speciesTables > 5000) { speciesRoot = { next: new Map() }; speciesTables = 0; }
-  node.table = table;
-  return table;
+  return speciesTables.set(node, table);
 }
 
 // a system's form keys (`phosphate/2`; a custom system's id may be reused with other data, so `id*z0/j` with its

@@ -137,12 +137,20 @@ function columnFor<T>(s: ColumnStore<T>, value: Cell): Column<T> | undefined {
   let column = s.byContent.get(key);
   if (!column) {
     const blank: boolean[] = [], parsed: (T | undefined)[] = [];
+    // a text repeated down the range (a unit column of "g") is parsed once: a refused one costs its failure's message
+    const byText = new Map<string, T | undefined>();
     cells.forEach((c, k) => {
       const isEmpty = isBlank(c) || (s.blankZero && c === 0);
       blank.push(isEmpty);
       let p: T | undefined;
       // a text that does not parse is left to the general path, which raises its failure with its row
-      if (!isEmpty && typeof c === 'string') try { p = s.parse(c, k + 1); } catch { p = undefined; }
+      if (!isEmpty && typeof c === 'string') {
+        if (byText.has(c)) p = byText.get(c);
+        else {
+          try { p = s.parse(c, k + 1); } catch { p = undefined; }
+          byText.set(c, p);
+        }
+      }
       parsed.push(p);
     });
     column = { id: nextColumnId++, rows, cols, cells, blank, parsed };
