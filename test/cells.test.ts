@@ -238,7 +238,7 @@ describe('CURVE carries a check text per point', () => {
       expect(Math.abs(pH - (row[4][0] as number))).toBeLessThan(1e-9);
     }
     expect(points[0][2]).toBe('');
-    expect(points[4][2]).toMatch(/the Davies pH departs from the sit model's .* at ionic strength .* mol\/L/);
+    expect(points[4][2]).toMatch(/the Davies pH departs from the SIT model's .* at ionic strength .* mol\/L/);
   });
 });
 

@@ -17,8 +17,8 @@ describe('the bundled examples', () => {
 
 describe('model validity', () => {
   test.each([
-    ['davies', 0.8, /^the Davies pH departs from the sit model's \(6\.\d{3}\) by 0\.\d{3} at ionic strength 0\.900 mol\/L/],
-    ['bates-guggenheim', 0.3, /^the Bates–Guggenheim pH departs from the sit model's \(6\.\d{3}\) by 0\.\d{3} at ionic strength 0\.400 mol\/L/],
+    ['davies', 0.8, /^the Davies pH departs from the SIT model's \(6\.\d{3}\) by 0\.\d{3} at ionic strength 0\.900 mol\/L/],
+    ['bates-guggenheim', 0.3, /^the Bates–Guggenheim pH departs from the SIT model's \(6\.\d{3}\) by 0\.\d{3} at ionic strength 0\.400 mol\/L/],
   ])('SPECIES warns where the %s pH departs from sit but still returns a number', (model, nacl, pattern) => {
     const table = species([['KH2PO4'], ['Na2HPO4'], ['NaCl']], [[0.025], [0.025], [nacl]], 'M', null, 25, model);
     const warning = table.find((r) => r[0] === 'warning') as (string | number)[];
@@ -27,7 +27,7 @@ describe('model validity', () => {
     expect(Number.isFinite(pH[1] as number)).toBe(true);
   });
   // a warning text that holds nothing but the Davies departure from sit (or none): no solubility or binding line
-  const ONLY_DEPARTURE = /^(none|the Davies pH departs from the sit model's [^;]*)$/;
+  const ONLY_DEPARTURE = /^(none|the Davies pH departs from the SIT model's [^;]*)$/;
   const warningOf = (reagents: string[], molar: number[]): string =>
     String((species(reagents.map((x) => [x]), molar.map((x) => [x]), 'M', null, 25, 'davies').find((r) => r[0] === 'warning') as string[])[1]);
   test.each([
@@ -62,7 +62,7 @@ describe('model validity', () => {
     }
   });
   test('warnings join: a binding warning and an ionic-strength warning together', () => {
-    expect(warningOf(['disodium EDTA dihydrate', 'MgCl2', 'NaCl'], [0.001, 0.002, 0.8])).toMatch(/departs from the sit model's .*; EDTA with Mg²⁺/);
+    expect(warningOf(['disodium EDTA dihydrate', 'MgCl2', 'NaCl'], [0.001, 0.002, 0.8])).toMatch(/departs from the SIT model's .*; EDTA with Mg²⁺/);
   });
   test('no binding warning without the metal ion', () => {
     expect(warningOf(['disodium EDTA dihydrate', 'NaCl', 'KCl'], [0.001, 0.15, 0.003])).toMatch(ONLY_DEPARTURE);

@@ -116,7 +116,7 @@ describe('cell functions in HyperFormula', () => {
     expect(v.map((row) => typeof row[1])).toEqual(['number', 'number', 'number', 'number', 'number']);
     // the buffer alone gives I = 0.10 mol/L, each row adds its NaCl; the Davies pH departs from the sit pH by more
     // than 0.02 from 100 mM NaCl on (0.038 there), so those rows are flagged (README, WARNINGS)
-    expect(v.map((row) => (row[2] === 'none' ? 'none' : /the Davies pH departs from the sit model's/.test(String(row[2])) ? 'departs' : row[2])))
+    expect(v.map((row) => (row[2] === 'none' ? 'none' : /the Davies pH departs from the SIT model's/.test(String(row[2])) ? 'departs' : row[2])))
       .toEqual(['none', 'departs', 'departs', 'departs', 'departs']);
   });
 

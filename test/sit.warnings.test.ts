@@ -25,14 +25,14 @@ describe('the departure warning follows the difference from sit', () => {
       const pH = impl.ph(PHOSPHATE, amounts(nacl), UNITS, 1, 25, model) as number;
       const sit = impl.ph(PHOSPHATE, amounts(nacl), UNITS, 1, 25, 'sit') as number;
       const warning = impl.warnings(PHOSPHATE, amounts(nacl), UNITS, 1, 25, model);
-      const flagged = /departs from the sit model's/.test(warning);
+      const flagged = /departs from the SIT model's/.test(warning);
       expect([nacl, flagged]).toEqual([nacl, Math.abs(pH - sit) > 0.02]);
       if (flagged) expect(warning).toContain(`(${sit.toFixed(3)}) by ${Math.abs(pH - sit).toFixed(3)}`);
     }
   });
 
   test('Davies is flagged from about 0.05 M NaCl in this buffer, far below the old fixed 0.5 mol/kg', () => {
-    expect(impl.warnings(PHOSPHATE, amounts(0.05), UNITS, 1, 25, 'davies')).toMatch(/departs from the sit model's/);
+    expect(impl.warnings(PHOSPHATE, amounts(0.05), UNITS, 1, 25, 'davies')).toMatch(/departs from the SIT model's/);
     expect(impl.warnings(PHOSPHATE, amounts(0), UNITS, 1, 25, 'davies')).toBe('none');
   });
 
@@ -51,7 +51,7 @@ describe('the departure warning follows the difference from sit', () => {
   test('beyond sit\'s own 3 mol/kg the fixed range warning stands', () => {
     const w = impl.warnings([['NaCl']], [[4]], [['M']], 1, 25, 'davies');
     expect(w).toMatch(/above the Davies model's range/);
-    expect(impl.warnings([['NaCl']], [[4]], [['M']], 1, 25, 'sit')).toMatch(/above the sit model's range \(about 2\.7\d mol\/L here\)/); // 3 mol/kg times this solution's kg of water per litre (about 0.91)
+    expect(impl.warnings([['NaCl']], [[4]], [['M']], 1, 25, 'sit')).toMatch(/above the SIT model's range \(about 2\.7\d mol\/L here\)/); // 3 mol/kg times this solution's kg of water per litre (about 0.91)
   });
 });
 

@@ -161,7 +161,7 @@ describe('a stock made outside the model says so wherever it is used', () => {
   test('1 M Tris-HCl pH 8.0 (I ≈ 0.6 mol/kg) carries its warning into WARNINGS of a dilution, and through a STOCK of it', () => {
     const direct = warnings([['1 M Tris-HCl pH 8.0']], [[50]], 'mL', 1);
     // the stock's own Davies pH departs from its sit pH by more than 0.02 (the departure warning, issue 12)
-    expect(direct).toMatch(/^the stock 1 M Tris pH 8 itself, as adjusted at 25 °C: the Davies pH departs from the sit model's \(8\.0\d+\) by 0\.0\d+ at ionic strength 0\.6\d+ mol\/L/);
+    expect(direct).toMatch(/^the stock 1 M Tris pH 8 itself, as adjusted at 25 °C: the Davies pH departs from the SIT model's \(8\.0\d+\) by 0\.0\d+ at ionic strength 0\.6\d+ mol\/L/);
     const handle = stock('1 M Tris-HCl pH 8.0', 1, 'L', 1, 'Tris stock');
     expect(warnings([[handle]], [[50]], 'mL', 1)).toBe(direct);
     // a dilute pH stock inside the model's range carries nothing

@@ -50,7 +50,7 @@ export interface SolutionDensity {
   /** what the density was summed over: built when first read (SPECIES, CONSTANTS), not for every forward solve */
   readonly solutes: DensitySolute[];
   /** sentences for WARNINGS: estimated solutes or fits out of range, when they are a large part of the solution */
-  warnings: string[];
+  readonly warnings: readonly string[];
   /** one line naming the sources, for CONSTANTS and SPECIES */
   readonly source: string;
   /** the parts it was computed from (to recompute it at another temperature) */
@@ -170,17 +170,32 @@ export function solutionDensity(parts: readonly DensityPartAmount[], temperature
   let soluteMass = 0;
   for (const x of pending) soluteMass += x.massKgPerL;
   const rho = pending.length === 0 ? rhoW : settleDensity(pending, soluteMass, rhoW, temperatureC);
-  const waterKgPerL = rho - soluteMass;
-  // the solutes' table and the source line are text for CONSTANTS, SPECIES and warnings: built when first read
-  let solutes: DensitySolute[] | undefined, source: string | undefined;
-  const solutesNow = (): DensitySolute[] => (solutes ??= describeSolutes(pending, soluteMass / rho, temperatureC));
-  // a warning needs solutes of at least LARGE_SOLUTE_G_PER_L: below that in all, there is none to look for
-  const warnings = soluteMass * 1000 < LARGE_SOLUTE_G_PER_L ? [] : densityWarnings(solutesNow(), rhoW, waterKgPerL);
-  return {
-    temperatureC, densityKgPerL: rho, waterKgPerL, pureWaterKgPerL: rhoW, warnings, parts,
-    get solutes(): DensitySolute[] { return solutesNow(); },
-    get source(): string { return (source ??= sourceOf(pending, soluteMass / rho, temperatureC, solutesNow)); },
-  };
+  return new ComputedDensity(temperatureC, rho, rhoW, parts, pending, soluteMass);
+}
+
+const NO_WARNINGS: readonly string[] = Object.freeze([]);
+
+/** A density and what it was summed over; the solutes' table and the source line are built when first read. */
+class ComputedDensity implements SolutionDensity {
+  readonly waterKgPerL: number;
+  readonly warnings: readonly string[];
+  private solutesTable?: DensitySolute[];
+  private sourceLine?: string;
+
+  constructor(readonly temperatureC: number, readonly densityKgPerL: number, readonly pureWaterKgPerL: number, readonly parts: readonly DensityPartAmount[],
+    private readonly pending: Pending[], private readonly soluteMassKgPerL: number) {
+    this.waterKgPerL = densityKgPerL - soluteMassKgPerL;
+    // a warning needs solutes of at least LARGE_SOLUTE_G_PER_L: below that in all, there is none to look for
+    this.warnings = soluteMassKgPerL * 1000 < LARGE_SOLUTE_G_PER_L ? NO_WARNINGS : densityWarnings(this.solutes, pureWaterKgPerL, this.waterKgPerL);
+  }
+
+  get solutes(): DensitySolute[] {
+    return (this.solutesTable ??= describeSolutes(this.pending, this.soluteMassKgPerL / this.densityKgPerL, this.temperatureC));
+  }
+
+  get source(): string {
+    return (this.sourceLine ??= sourceOf(this.pending, this.soluteMassKgPerL / this.densityKgPerL, this.temperatureC, () => this.solutes));
+  }
 }
 
 /** The solutes as SPECIES and CONSTANTS print them, at solute mass fraction w: volume, basis, source and range. */
@@ -202,53 +217,67 @@ function usableDensity(rho: number): boolean {
   return Number.isFinite(rho) && rho > 0;
 }
 
+// the fits' temperature factors, masses and estimates of the solutes being settled, reused from call to call: the
+// balance is evaluated synchronously and never re-entered, and nothing is allocated per density
+let fitC0 = new Float64Array(8), fitC1 = new Float64Array(8), fitShift = new Float64Array(8), soluteKg = new Float64Array(8), estimateV = new Float64Array(8);
+let fitted = new Uint8Array(8);
+
+/** Apparent specific volume, L/kg, of settled solute i at solute mass fraction x: its fit, or its stated estimate. */
+function settledVolume(i: number, x: number): number {
+  if (fitted[i]) {
+    const v = (x + fitShift[i]) / (fitC0[i] * x + fitC1[i]);
+    if (Number.isFinite(v)) return v;
+  }
+  return estimateV[i];
+}
+
+/**
+ * g(ρ) = ρw (1 − Σ m_i v_i(Σm/ρ)) + Σm − ρ, kg/L, over the n settled solutes; refused when the solutes alone would
+ * fill the litre.
+ */
+function densityBalance(n: number, soluteMass: number, rhoW: number, r: number): number {
+  const x = soluteMass / r;
+  let soluteVolumeL = 0;
+  for (let i = 0; i < n; i++) soluteVolumeL += soluteKg[i] * settledVolume(i, x);
+  if (!(soluteVolumeL < 1)) {
+    return fail({ code: 'no_convergence', argument: 'amounts', received: `solutes that would take up ${fmt(soluteVolumeL)} L of each litre of solution by themselves`,
+      expected: 'a composition that can be dissolved: check the amounts, their units and the volume' });
+  }
+  return rhoW * (1 - soluteVolumeL) + soluteMass - r;
+}
+
 /**
  * The density, kg/L, at which the litre's volume balance closes: ρ = ρw (1 − Σ m_i v_i(x)) + Σ m_i with x = Σ m_i/ρ,
  * by substitution and secant steps to 1e−12 kg/L. Solutes that would fill the litre by themselves have no solution: a coded failure
  * (no_convergence, which an inverse search backs off from at its limit), as is a balance that does not settle.
  */
-let scratch = new Float64Array(64);
-
 function settleDensity(solutes: Pending[], soluteMass: number, rhoW: number, temperatureC: number): number {
-  // the fits' temperature factors do not depend on the composition: computed once, so each pass is arithmetic
   const n = solutes.length;
-  if (scratch.length < 4 * n) scratch = new Float64Array(8 * n);
-  // views into one reused buffer: the balance is evaluated synchronously and never re-entered
-  const c0 = scratch.subarray(0, n), c1 = scratch.subarray(n, 2 * n), shift = scratch.subarray(2 * n, 3 * n), mass = scratch.subarray(3 * n, 4 * n);
-  solutes.forEach((s, i) => {
-    mass[i] = s.massKgPerL;
-    if (!s.fit) return;
-    const f = s.fit.c, scale = Math.exp(1e-6 * (temperatureC + f[4]) ** 2) / 1000;
-    c0[i] = f[0] * scale; c1[i] = f[1] * scale; shift[i] = f[2] + f[3] * temperatureC;
-  });
-  const volumeAt = (i: number, x: number): number => {
+  if (fitC0.length < n) {
+    const size = 2 * n;
+    fitC0 = new Float64Array(size); fitC1 = new Float64Array(size); fitShift = new Float64Array(size); soluteKg = new Float64Array(size);
+    estimateV = new Float64Array(size); fitted = new Uint8Array(size);
+  }
+  // the fits' temperature factors do not depend on the composition: computed once, so each pass is arithmetic
+  for (let i = 0; i < n; i++) {
     const s = solutes[i];
-    if (s.fit) {
-      const v = (x + shift[i]) / (c0[i] * x + c1[i]);
-      if (Number.isFinite(v)) return v;
-    }
-    return s.estimateLPerKg;
-  };
-  // g(ρ) = ρw (1 − Σ m_i v_i(Σm/ρ)) + Σm − ρ = 0: the substitution ρ ← ρ + g is a contraction; a secant step on g
-  // (once two points are known) takes it to 1e−12 kg/L in a few passes where a steep fit would make substitution slow
-  const balance = (r: number): number => {
-    const x = soluteMass / r;
-    let soluteVolumeL = 0;
-    for (let i = 0; i < n; i++) soluteVolumeL += mass[i] * volumeAt(i, x);
-    if (!(soluteVolumeL < 1)) {
-      return fail({ code: 'no_convergence', argument: 'amounts', received: `solutes that would take up ${fmt(soluteVolumeL)} L of each litre of solution by themselves`,
-        expected: 'a composition that can be dissolved: check the amounts, their units and the volume' });
-    }
-    return rhoW * (1 - soluteVolumeL) + soluteMass - r;
-  };
-  let rho = rhoW + 0.7 * soluteMass, g = balance(rho);
+    soluteKg[i] = s.massKgPerL;
+    estimateV[i] = s.estimateLPerKg;
+    fitted[i] = s.fit ? 1 : 0;
+    if (!s.fit) continue;
+    const f = s.fit.c, scale = Math.exp(1e-6 * (temperatureC + f[4]) ** 2) / 1000;
+    fitC0[i] = f[0] * scale; fitC1[i] = f[1] * scale; fitShift[i] = f[2] + f[3] * temperatureC;
+  }
+  // the substitution ρ ← ρ + g is a contraction; a secant step on g (once two points are known) takes it to
+  // 1e−12 kg/L in a few passes where a steep fit would make substitution slow
+  let rho = rhoW + 0.7 * soluteMass, g = densityBalance(n, soluteMass, rhoW, rho);
   let previous = NaN, gPrevious = NaN;
   for (let iter = 0; iter < 100; iter++) {
     const secant = Number.isFinite(previous) && g !== gPrevious ? (g * (rho - previous)) / (g - gPrevious) : NaN;
     const next = Number.isFinite(secant) && usableDensity(rho - secant) ? rho - secant : rho + g;
     previous = rho; gPrevious = g;
     rho = next;
-    g = balance(rho);
+    g = densityBalance(n, soluteMass, rhoW, rho);
     if (Math.abs(g) <= 1e-12 && Math.abs(rho - previous) <= 1e-9) return rho;
   }
   return fail({ code: 'no_convergence', argument: 'amounts', received: 'a solution density that did not settle', expected: 'a composition within the density fits; please report this case' });

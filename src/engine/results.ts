@@ -58,7 +58,7 @@ function supDigits(digits: string): string {
 }
 
 /** Activity models as they are published (Davies 1938; Bates and Guggenheim 1960), for warning prose. */
-const MODEL_DISPLAY_NAMES: Record<string, string> = { davies: 'Davies', 'bates-guggenheim': 'Bates–Guggenheim', ideal: 'ideal', sit: 'sit' };
+const MODEL_DISPLAY_NAMES: Record<string, string> = { davies: 'Davies', 'bates-guggenheim': 'Bates–Guggenheim', ideal: 'ideal', sit: 'SIT' };
 
 /** A Davies or Bates–Guggenheim pH is flagged when it departs from the sit pH of the same mixture by more than this. */
 export const SIT_DEPARTURE_PH = 0.02;
@@ -184,7 +184,7 @@ export function modelWarning(eq: Equilibrium): string {
   const departure = p.model === 'davies' || p.model === 'bates-guggenheim' ? sitDeparture(eq) : undefined;
   if (departure !== undefined) {
     if (Math.abs(departure.pH - eq.pH) > SIT_DEPARTURE_PH) {
-      warnings.push(`the ${MODEL_DISPLAY_NAMES[p.model]} pH departs from the sit model's (${departure.pH.toFixed(3)}) by ${Math.abs(departure.pH - eq.pH).toFixed(3)} at ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L: treat it as an estimate, or use model sit`);
+      warnings.push(`the ${MODEL_DISPLAY_NAMES[p.model]} pH departs from the SIT model's (${departure.pH.toFixed(3)}) by ${Math.abs(departure.pH - eq.pH).toFixed(3)} at ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L: treat it as an estimate, or use model sit`);
     }
   } else if (p.model !== 'ideal' && ionicMolal > limit) {
     warnings.push(`ionic strength ${eq.ionicStrengthM.toPrecision(3)} mol/L is above the ${MODEL_DISPLAY_NAMES[p.model] ?? p.model} model's range (about ${Number((limit * rhoW).toPrecision(3))} mol/L here): treat the pH as an estimate`);
