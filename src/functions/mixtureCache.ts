@@ -167,9 +167,11 @@ function columnFor<T>(s: ColumnStore<T>, value: Cell): Column<T> | undefined {
 // nothing to evict in order). The large one holds small entries: the key, pH, ionic strength and, once asked,
 // capacity and warning, so a table's repeated mixtures are found without a solve. The small one holds the full
 // equilibria of the latest mixtures, for SPECIES, CONSTANTS, CAPACITY and WARNINGS beside PHMIX in their row: few
-// enough that they die young, since retaining thousands of solved problems costs the collector more than a solve.
+// enough that they die young, since every solved problem still held when the collector runs is copied by it (512 held
+// cost a distinct PHMIX call about 4 µs more than 64 did, npm run bench, 2026-12-02; a column computed after a long
+// PHMIX column re-solves either way).
 const SLOTS = 8192;
-const SOLVED_SLOTS = 512;
+const SOLVED_SLOTS = 64;
 
 abstract class Entry implements MixtureEntry {
   capacity?: number;
