@@ -35,19 +35,21 @@ export interface SitState {
   inverseRho: number;
   estimated: EstimatedPair[];
   /** ln γ offsets of the variable species in use */
-  offset: Float64Array;
+  offset: number[];
   lnWaterActivity: number;
   // scratch for a refresh
-  next: Float64Array;
+  next: number[];
   nextLnWaterActivity: number;
-  molal: Float64Array;
-  all: Float64Array;
+  molal: number[];
+  all: number[];
 }
 
 /** What a species list fixes once and for all: keys, charges, where each system's forms start, and the ε pairs. */
 interface SpeciesTable {
   keys: string[]; charges: Float64Array; formStart: Int32Array; nVariable: number;
   pairA: Int32Array; pairB: Int32Array; pairLnEps: Float64Array; estimated: EstimatedPair[];
+  /** zeros as packed arrays of doubles, copied for each problem's offsets and scratch (see prepareSit) */
+  zerosVariable: number[]; zerosAll: number[];
 }
 // one table per species list (catalogue ε): ion ids and form keys are made once, so the walk builds nothing
 const speciesTables = new KeyTrie<SpeciesTable>(5000);
@@ -81,7 +83,8 @@ function speciesTable(problem: Problem): SpeciesTable {
     }
   }
   const table: SpeciesTable = { keys, charges: Float64Array.from(charges), formStart, nVariable,
-    pairA: Int32Array.from(pairA), pairB: Int32Array.from(pairB), pairLnEps: Float64Array.from(pairLnEps), estimated };
+    pairA: Int32Array.from(pairA), pairB: Int32Array.from(pairB), pairLnEps: Float64Array.from(pairLnEps), estimated,
+    zerosVariable: doubleZeros(nVariable), zerosAll: doubleZeros(n) };
   return speciesTables.set(node, table);
 }
 
@@ -97,6 +100,13 @@ function formKeysOf(system: Problem['systems'][number]['system'], forms: number)
   return keys;
 }
 
+/** n zeros in an array whose elements are stored as doubles (built from a fraction, then zeroed, so it never holds small integers). */
+function doubleZeros(n: number): number[] {
+  const out: number[] = [];
+  for (let i = 0; i < n; i++) out.push(0.5);
+  return out.fill(0);
+}
+
 /**
  * Builds the SIT state for a prepared problem: the species list's table (keys, charges, ε pairs) is shared by every
  * problem with that list; the offsets and scratch are the problem's own.
@@ -104,14 +114,12 @@ function formKeysOf(system: Problem['systems'][number]['system'], forms: number)
  */
 export function prepareSit(problem: Problem): SitState {
   const t = speciesTable(problem);
-  const n = t.keys.length, v = t.nVariable;
-  // one buffer for the four arrays: a typed array over 64 bytes is allocated outside the heap, at several times the cost
-  const buffer = new Float64Array(v + 3 * n);
+  // copies of packed double arrays: a typed array over 64 bytes is allocated outside the heap, at about ten times the cost
   return {
-    formStart: t.formStart, nVariable: v, charges: t.charges, keys: t.keys, estimated: t.estimated,
+    formStart: t.formStart, nVariable: t.nVariable, charges: t.charges, keys: t.keys, estimated: t.estimated,
     pairA: t.pairA, pairB: t.pairB, pairLnEps: t.pairLnEps, inverseRho: Math.exp(-problem.lnWaterDensity),
-    offset: buffer.subarray(0, v), lnWaterActivity: 0, next: buffer.subarray(v, v + n), nextLnWaterActivity: 0,
-    molal: buffer.subarray(v + n, v + 2 * n), all: buffer.subarray(v + 2 * n, v + 3 * n),
+    offset: t.zerosVariable.slice(), lnWaterActivity: 0, next: t.zerosAll.slice(), nextLnWaterActivity: 0,
+    molal: t.zerosAll.slice(), all: t.zerosAll.slice(),
   };
 }
 
@@ -206,14 +214,15 @@ export function sitApply(problem: Problem, dfdy = 0): number {
 }
 
 /** The offsets in use, and ln aw, to restore after a side computation re-solves the problem. */
-export function sitSnapshot(problem: Problem): { offset: Float64Array; lnWaterActivity: number } | undefined {
+export function sitSnapshot(problem: Problem): { offset: number[]; lnWaterActivity: number } | undefined {
   const sit = problem.sit;
-  return sit ? { offset: Float64Array.from(sit.offset), lnWaterActivity: sit.lnWaterActivity } : undefined;
+  return sit ? { offset: sit.offset.slice(), lnWaterActivity: sit.lnWaterActivity } : undefined;
 }
 
-export function sitRestore(problem: Problem, snapshot: { offset: Float64Array; lnWaterActivity: number } | undefined): void {
+export function sitRestore(problem: Problem, snapshot: { offset: number[]; lnWaterActivity: number } | undefined): void {
   if (!problem.sit || !snapshot) return;
-  problem.sit.offset.set(snapshot.offset);
+  const offset = problem.sit.offset;
+  for (let a = 0; a < offset.length; a++) offset[a] = snapshot.offset[a];
   problem.sit.lnWaterActivity = snapshot.lnWaterActivity;
 }
 
