@@ -14,6 +14,8 @@ export const STRONG_IONS: readonly StrongIon[] = [
   { id: 'ClO4-', charge: -1 },
 ];
 
+const ION_BY_ID = new Map<string, StrongIon>(STRONG_IONS.map((ion) => [ion.id, ion]));
+
 export function strongIonById(id: string): StrongIon | undefined {
-  return STRONG_IONS.find((ion) => ion.id === id);
+  return ION_BY_ID.get(id);
 }

@@ -121,6 +121,8 @@ function checkConcentration(name: string, concentrationM: number): void {
   }
 }
 
+const NO_NOTES: readonly string[] = Object.freeze([]);
+
 export function prepareProblem(contents: Contents, temperatureC: number, model: ActivityModel): Problem {
   checkWaterRange(temperatureC);
   const water = waterConstants(temperatureC);
@@ -150,7 +152,7 @@ export function prepareProblem(contents: Contents, temperatureC: number, model: 
     temperatureC, model, debyeHuckelA: water.debyeHuckelA, lnWaterDensity: Math.log(density.waterKgPerL), density, lnKw: water.lnKw,
     systems, totalsM: Float64Array.from(totals), ions, strongChargeM: 0, strongZ2M: 0, lnGammaZ2: 0, lnKwc: 0, evaluations: 0,
     stepOrder,
-    notes: [...(contents.notes ?? []), ...density.warnings],
+    notes: contents.notes === undefined && density.warnings.length === 0 ? NO_NOTES : [...(contents.notes ?? []), ...density.warnings],
     // always present, so every problem has one shape for the solver's hot loops
     sit: undefined,
   };

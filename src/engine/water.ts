@@ -19,10 +19,15 @@ export function checkWaterRange(temperatureC: number, argument = 'temperature'):
 
 /** Density of air-free water at 0.1 MPa, kg/L (Kell 1975, J. Chem. Eng. Data 20, 97; 0–150 °C). */
 export function waterDensityKgPerL(temperatureC: number): number {
+  // the last temperature asked for: a what-if table asks at one temperature row after row
+  if (temperatureC === lastDensityC) return lastDensityKgPerL;
   const t = temperatureC;
   const num = 999.83952 + 16.945176 * t - 7.9870401e-3 * t ** 2 - 46.170461e-6 * t ** 3 + 105.56302e-9 * t ** 4 - 280.54253e-12 * t ** 5;
-  return num / (1 + 16.87985e-3 * t) / 1000;
+  lastDensityC = temperatureC;
+  lastDensityKgPerL = num / (1 + 16.87985e-3 * t) / 1000;
+  return lastDensityKgPerL;
 }
+let lastDensityC = NaN, lastDensityKgPerL = NaN;
 
 /** Relative permittivity of water (Malmberg & Maryott 1956, J. Res. NBS 56, 1; 0–100 °C). */
 export function waterPermittivity(temperatureC: number): number {
