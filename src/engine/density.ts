@@ -2,6 +2,7 @@ import { DENSITY_ESTIMATE, DENSITY_FITS } from '../catalogue';
 import type { AcidSystem, DensityFit } from '../catalogue';
 import { fail } from './failure';
 import { parseFormula, compositionMassGPerMol } from './formula';
+import { ionLabel } from './ionLabel';
 import { KeyTrie } from './keyTrie';
 import { WATER_SOURCES, waterDensityKgPerL } from './water';
 
@@ -338,16 +339,10 @@ function ionPart(id: string, charge: number, concentrationM: number): DensityPar
   if (!info) {
     // the ion's formula is its id without the charge: Na+ → Na, ClO4- → ClO4, Ca2+ → Ca
     const composition = parseFormula(id.replace(/\d*[+-]$/, '')).composition;
-    info = { part: id, label: printedIon(id), charge, molarMassGPerMol: compositionMassGPerMol(composition), organic: (composition.C ?? 0) > 0 };
+    info = { part: id, label: ionLabel(id), charge, molarMassGPerMol: compositionMassGPerMol(composition), organic: (composition.C ?? 0) > 0 };
     ionInfo.set(id, info);
   }
   return { part: info.part, label: info.label, charge, concentrationM, molarMassGPerMol: info.molarMassGPerMol, organic: info.organic };
-}
-
-const SUPERSCRIPT: Record<string, string> = { '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹', '+': '⁺', '-': '⁻' };
-/** An ion id as printed: Na+ → Na⁺, Ca2+ → Ca²⁺. */
-function printedIon(id: string): string {
-  return id.replace(/(\d*[+-])$/, (charge) => charge.split('').map((ch) => SUPERSCRIPT[ch]).join(''));
 }
 
 function formsOf(system: AcidSystem): PartInfo[] {

@@ -7,6 +7,9 @@ import type { Equilibrium, JointJacobian } from './solver';
 import { jointJacobian, lnGammaZ2For, solve } from './solver';
 import { prepareSit, sitEstimatesInUse, sitRestore, sitSnapshot, sitStrongOffsets } from './sit';
 import { fractionsAt } from './speciation';
+import { ionLabel } from './ionLabel';
+
+export { ionLabel };
 
 export interface SpeciesRow {
   species: string;
@@ -37,24 +40,6 @@ export function speciesRows(eq: Equilibrium): SpeciesRow[] {
       sit?.offset[sit.formStart[i] + j])));
   });
   return rows;
-}
-
-/** An ion id as it is printed: Mg2+ → Mg²⁺, Cl- → Cl⁻. */
-export function ionLabel(id: string): string {
-  let label = ionLabels.get(id);
-  if (label === undefined) ionLabels.set(id, (label = printedIonLabel(id)));
-  return label;
-}
-// printed once per ion id: SPECIES prints every ion of every mixture
-const ionLabels = new Map<string, string>();
-
-function printedIonLabel(id: string): string {
-  return id.replace(/(\d*)\+$/, (_, n) => `${supDigits(n)}⁺`).replace(/(\d*)-$/, (_, n) => `${supDigits(n)}⁻`);
-}
-
-function supDigits(digits: string): string {
-  const map: Record<string, string> = { '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
-  return digits.split('').map((d) => map[d] ?? d).join('');
 }
 
 /** Activity models as they are published (Davies 1938; Bates and Guggenheim 1960), for warning prose. */
