@@ -149,11 +149,12 @@ function solutesOf(parts: readonly DensityPartAmount[]): Pending[] {
 
 /** Apparent specific volume, L/kg, of a solute at total solute mass fraction w: its fit, or the stated estimate. */
 function volumeOf(s: Pending, w: number, t: number): { lPerKg: number; fitted: boolean } {
-  if (s.fit) {
-    const v = fittedVolumeLPerKg(s.fit, w, t);
-    if (Number.isFinite(v)) return { lPerKg: v, fitted: true };
-  }
-  return { lPerKg: s.estimateLPerKg, fitted: false };
+  return fittedAt(s, w, t) ? { lPerKg: fittedVolumeLPerKg(s.fit as DensityFit, w, t), fitted: true } : { lPerKg: s.estimateLPerKg, fitted: false };
+}
+
+/** Whether a solute's volume at w and t comes from its fit (a fit that is not finite there gives way to the estimate). */
+function fittedAt(s: Pending, w: number, t: number): boolean {
+  return s.fit !== undefined && Number.isFinite(fittedVolumeLPerKg(s.fit, w, t));
 }
 
 const fmt = (x: number, digits = 3): string => String(Number(x.toPrecision(digits)));
@@ -304,16 +305,33 @@ function densityWarnings(solutes: DensitySolute[], rhoW: number, waterKgPerL: nu
 // the source line depends only on which solutes there are and whether each was fitted: one text per such list
 const SOURCE_TEXTS = new KeyTrie<string>(2000);
 
-/** The source line of a density, from the cache when the same solutes were summed before. */
+// the key of the last line looked up (three texts per solute) and the line: a table's rows sum the same solutes
+const lastSourceKey: string[] = [];
+let lastSourceLine = '';
+
+/** The three texts a solute adds to the source line's key: what the line prints (a custom form's label may change under the same part key). */
+function sourceKeyAt(s: Pending, part: number, w: number, temperatureC: number): string {
+  if (part === 0) return s.fit ? s.fit.formula : s.first.label;
+  if (part === 1) return s.second && !s.fit ? s.second.label : '';
+  return fittedAt(s, w, temperatureC) ? 'fit' : 'estimate';
+}
+
+/** The source line of a density: the last one when the solutes are the same, else from the cache of lines seen before. */
 function sourceOf(pending: Pending[], w: number, temperatureC: number, solutes: () => DensitySolute[]): string {
+  let same = lastSourceKey.length === 3 * pending.length;
+  for (let k = 0; same && k < lastSourceKey.length; k++) same = lastSourceKey[k] === sourceKeyAt(pending[(k / 3) | 0], k % 3, w, temperatureC);
+  if (same) return lastSourceLine;
+  lastSourceKey.length = 0;
   let node = SOURCE_TEXTS.start();
   for (const s of pending) {
-    // keyed by what the line prints (a custom form's label may change under the same part key)
-    node = SOURCE_TEXTS.step(node, s.fit ? s.fit.formula : s.first.label);
-    node = SOURCE_TEXTS.step(node, s.second && !s.fit ? s.second.label : '');
-    node = SOURCE_TEXTS.step(node, volumeOf(s, w, temperatureC).fitted ? 'fit' : 'estimate');
+    for (let part = 0; part < 3; part++) {
+      const key = sourceKeyAt(s, part, w, temperatureC);
+      lastSourceKey.push(key);
+      node = SOURCE_TEXTS.step(node, key);
+    }
   }
-  return node.value ?? SOURCE_TEXTS.set(node, sourceText(solutes()));
+  lastSourceLine = node.value ?? SOURCE_TEXTS.set(node, sourceText(solutes()));
+  return lastSourceLine;
 }
 
 function sourceText(solutes: DensitySolute[]): string {

@@ -71,13 +71,13 @@ function sitDeparture(eq: Equilibrium): { pH: number } | undefined {
   const p = eq.problem;
   const ionicMolal = eq.ionicStrengthM / Math.exp(p.lnWaterDensity);
   if (ionicMolal > MODEL_LIMIT_MOLAL.sit || departureBound(p, ionicMolal) < SIT_DEPARTURE_PH) return undefined;
-  const q: Problem = {
-    ...p, model: 'sit', systems: p.systems.map((s) => ({ ...s, lnCumK: new Float64Array(s.lnCumK.length) })), totalsM: Float64Array.from(p.totalsM),
-    ions: p.ions.map((ion) => ({ ...ion })), evaluations: 0, sit: undefined,
-  };
+  // its own conditional constants (the solve writes them); the totals and strong ions it only reads, so they are shared
+  const q: Problem = { ...p, model: 'sit', systems: p.systems.map((s) => ({ ...s, lnCumK: new Float64Array(s.lnCumK.length) })), evaluations: 0, sit: undefined };
   q.sit = prepareSit(q);
   try {
-    return { pH: solve(q, eq.lnH).pH };
+    // from the solver's own start, not the Davies root: at 1–3 mol/kg that root is 0.4–1 pH from sit's, and Newton
+    // from it took 5–6 evaluations at 0.5–1.5 M NaCl and fell back to the bracketed method (51) from 2 M, against 4
+    return { pH: solve(q).pH };
   } catch (e) {
     if (e instanceof ProticError) return undefined;
     throw e;

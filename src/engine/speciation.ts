@@ -37,7 +37,17 @@ export function systemMoments(lnCumK: Float64Array, lnProton: number, out: Momen
 
 /** Fractions of each form, most protonated first, for cumulative ln-constants and ln(proton variable). */
 export function fractionsAt(lnCumK: Float64Array, lnProton: number): number[] {
-  const fractions = new Float64Array(lnCumK.length);
-  systemMoments(lnCumK, lnProton, { mean: 0, variance: 0 }, fractions);
-  return Array.from(fractions);
+  // the same arithmetic as systemMoments, written straight into the array returned (Array.from of a typed array walks an iterator)
+  const n = lnCumK.length;
+  let maxLog = -Infinity;
+  for (let j = 0; j < n; j++) maxLog = Math.max(maxLog, lnCumK[j] - j * lnProton);
+  const fractions: number[] = [];
+  let sum = 0;
+  for (let j = 0; j < n; j++) {
+    const w = Math.exp(lnCumK[j] - j * lnProton - maxLog);
+    fractions.push(w);
+    sum += w;
+  }
+  for (let j = 0; j < n; j++) fractions[j] /= sum;
+  return fractions;
 }
