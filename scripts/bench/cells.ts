@@ -8,9 +8,10 @@
 // Times are CPU time of the process (see cpuMs), so that other work on a shared machine does not enter them.
 import { execFileSync } from 'child_process';
 import { PerformanceObserver } from 'perf_hooks';
-import { buildContents, prepareProblem, solve } from '../../src/engine';
+import { buildContents, prepareProblem, sitDeparture, solve } from '../../src/engine';
 import type { Contents, MixtureRow } from '../../src/engine';
 import * as impl from '../../src/functions/impl';
+import { equilibriumOf, mixtureEntry } from '../../src/functions/mixtureCache';
 import { evaluateSheet } from '../lib/sheetEngine';
 
 type Layout = 'shared' | 'per-row';
@@ -79,7 +80,11 @@ export interface NodeFigures {
   distinctUs: Record<Layout, number>;
   hitUs: Record<Layout, number>;
   distinctOverPrepareSolve: Record<Layout, number>;
-  fiveTogether: { phAloneUs: number; fourScalarUs: number; fiveUs: number; speciesSpillBuildingUs: number; fourOverPh: number; fiveAsideSpillOverPh: number };
+  fiveTogether: {
+    phAloneUs: number; fourScalarUs: number; fiveUs: number; speciesSpillBuildingUs: number; fourOverPh: number; fiveAsideSpillOverPh: number;
+    /** the sit solve WARNINGS runs for its departure check (a second model, not a second solve of PHMIX's), over PHMIX alone */
+    departureOverPh: number; fiveAsideSpillAndDepartureOverPh: number;
+  };
 }
 
 /**
@@ -99,6 +104,8 @@ function nodeFigures(): NodeFigures {
   };
   const species = (a: Args): void => { sink += impl.species(a[0], a[1], a[2], a[3]).length; };
   const five = (a: Args): void => { four(a); species(a); };
+  // PHMIX, then the sit solve of its mixture that WARNINGS's departure check runs, on the solved entry PHMIX left
+  const departure = (a: Args): void => { ph(a); sink += sitDeparture(equilibriumOf(mixtureEntry(a[0], a[1], a[2], a[3], null, null)))?.pH ?? 0; };
   const shared = (i: number): Args => argsFor('shared', i), perRow = (i: number): Args => argsFor('per-row', i);
   // warm up every path once
   for (let i = 0; i < 2000; i++) { five(shared(i)); ph(perRow(i)); solve(prepareProblem(buildContents(rowsFor(i), 1), 25, 'davies')); }
@@ -113,6 +120,7 @@ function nodeFigures(): NodeFigures {
     ['phAlone', () => batchUs(shared, ph)],
     ['four', () => batchUs(shared, four)],
     ['five', () => batchUs(shared, five)],
+    ['departure', () => batchUs(shared, departure)],
     // SPECIES on a mixture already solved: its cost beyond a cache hit is the spill it builds
     ['spill', () => Math.max(0, batchUs(shared, species, true) - batchUs(shared, ph, true))],
   ];
@@ -127,6 +135,8 @@ function nodeFigures(): NodeFigures {
     put('distinctPerRow/ps', got.distinctPerRow / got.prepareSolve);
     put('four/ph', got.four / got.phAlone);
     put('fiveAside/ph', (got.five - got.spill) / got.phAlone);
+    put('departure/ph', (got.departure - got.phAlone) / got.phAlone);
+    put('fiveAsideDeparture/ph', (got.five - got.spill - (got.departure - got.phAlone)) / got.phAlone);
   }
   if (!Number.isFinite(sink)) throw new Error('benchmark sink not finite');
   const m = (name: string): number => median(series[name]);
@@ -135,7 +145,8 @@ function nodeFigures(): NodeFigures {
     distinctUs: { shared: m('distinctShared'), 'per-row': m('distinctPerRow') },
     hitUs: { shared: m('hitShared'), 'per-row': m('hitPerRow') },
     distinctOverPrepareSolve: { shared: m('distinctShared/ps'), 'per-row': m('distinctPerRow/ps') },
-    fiveTogether: { phAloneUs: m('phAlone'), fourScalarUs: m('four'), fiveUs: m('five'), speciesSpillBuildingUs: m('spill'), fourOverPh: m('four/ph'), fiveAsideSpillOverPh: m('fiveAside/ph') },
+    fiveTogether: { phAloneUs: m('phAlone'), fourScalarUs: m('four'), fiveUs: m('five'), speciesSpillBuildingUs: m('spill'), fourOverPh: m('four/ph'), fiveAsideSpillOverPh: m('fiveAside/ph'),
+      departureOverPh: m('departure/ph'), fiveAsideSpillAndDepartureOverPh: m('fiveAsideDeparture/ph') },
   };
 }
 
@@ -236,6 +247,7 @@ export function cellsBench(): { lines: string[]; results: Record<string, unknown
     `  allocation per call: distinct ${f(allocation.sharedDistinctBytes, 0)} B shared, ${f(allocation.perRowDistinctBytes, 0)} B per-row; repeated ${f(allocation.sharedHitBytes, 0)} B shared, ${f(allocation.perRowHitBytes, 0)} B per-row (collections during measurement: ${allocation.collectionsDuringMeasurement})`,
     `  one row of PHMIX, IONICSTRENGTH, CAPACITY, WARNINGS: ${f(node.fiveTogether.fourScalarUs)} µs (${f(node.fiveTogether.fourOverPh)}× PHMIX alone); with SPECIES ${f(node.fiveTogether.fiveUs)} µs, of which SPECIES's spill building ${f(node.fiveTogether.speciesSpillBuildingUs)} µs`,
     `  the five together, spill building aside, over PHMIX alone (${f(node.fiveTogether.phAloneUs)} µs): ${f(node.fiveTogether.fiveAsideSpillOverPh)} (target ≤ 2)`,
+    `    of which WARNINGS's departure check, a solve of the mixture under sit: ${f(node.fiveTogether.departureOverPh)}× PHMIX; the five with it also aside: ${f(node.fiveTogether.fiveAsideSpillAndDepartureOverPh)}`,
     `cell layer: ${TABLE_ROWS}-row table in the headless runner against a built-in formula with the same references`,
     ...(['shared', 'per-row'] as Layout[]).map((l) => `  ${l.padEnd(7)} layout: PHMIX ${f(runner[l].phSeconds)} s (${f(runner[l].phUsPerRow, 1)} µs/row), built-in ${f(runner[l].lnSeconds)} s (${f(runner[l].lnUsPerRow, 1)} µs/row), ratio ${f(runner[l].phOverLn)}${l === 'shared' ? ' (target ≤ 1.5)' : ''}, non-numeric cells ${runner[l].errors}`),
     `  cell-layer targets met: ${Object.entries(targets).map(([k, v]) => `${k} ${v ? 'yes' : 'NO'}`).join(', ')}`,

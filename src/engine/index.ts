@@ -20,7 +20,7 @@ export {
 export { MAX_REAGENT_TEXT, firstCharacterProblem, foldConfusables, plainText, screenText } from './textScreen';
 export type { CharacterProblem } from './textScreen';
 export type { ResolvedReagent } from './registry';
-export { bufferCapacity, ionLabel, modelWarning, speciesRows } from './results';
+export { bufferCapacity, ionLabel, modelWarning, sitDeparture, speciesRows } from './results';
 export type { SpeciesRow } from './results';
 export { lnGammaZ2For, lnHFromPH, pHFromLnH, solve, solveFixedActivity, startingLnH } from './solver';
 export type { Equilibrium } from './solver';

@@ -64,10 +64,12 @@ function departureBound(p: Problem, ionicMolal: number): number {
 }
 
 /**
- * The same mixture solved under sit, for the departure warning; undefined when the bound says it cannot
- * matter, when the ionic strength is beyond sit's own range, or when the sit solve itself is refused.
+ * The same mixture solved under sit, for the departure warning of a Davies or Bates–Guggenheim result; undefined
+ * when the bound says it cannot matter, when the ionic strength is beyond sit's own range, or when the sit solve
+ * itself is refused. Exported so that `npm run bench` can state this second solve's share of WARNINGS.
+ * @example sitDeparture(solve(prepareProblem(contents, 25, 'davies')))?.pH // the sit pH, or undefined
  */
-function sitDeparture(eq: Equilibrium): { pH: number } | undefined {
+export function sitDeparture(eq: Equilibrium): { pH: number } | undefined {
   const p = eq.problem;
   const ionicMolal = eq.ionicStrengthM / Math.exp(p.lnWaterDensity);
   if (ionicMolal > MODEL_LIMIT_MOLAL.sit || departureBound(p, ionicMolal) < SIT_DEPARTURE_PH) return undefined;
