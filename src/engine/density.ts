@@ -149,7 +149,11 @@ function solutesOf(parts: readonly DensityPartAmount[]): Pending[] {
 
 /** Apparent specific volume, L/kg, of a solute at total solute mass fraction w: its fit, or the stated estimate. */
 function volumeOf(s: Pending, w: number, t: number): { lPerKg: number; fitted: boolean } {
-  return fittedAt(s, w, t) ? { lPerKg: fittedVolumeLPerKg(s.fit as DensityFit, w, t), fitted: true } : { lPerKg: s.estimateLPerKg, fitted: false };
+  if (s.fit) {
+    const v = fittedVolumeLPerKg(s.fit, w, t);
+    if (Number.isFinite(v)) return { lPerKg: v, fitted: true };
+  }
+  return { lPerKg: s.estimateLPerKg, fitted: false };
 }
 
 /** Whether a solute's volume at w and t comes from its fit (a fit that is not finite there gives way to the estimate). */
@@ -306,31 +310,25 @@ function densityWarnings(solutes: DensitySolute[], rhoW: number, waterKgPerL: nu
 const SOURCE_TEXTS = new KeyTrie<string>(2000);
 
 // the key of the last line looked up (three texts per solute) and the line: a table's rows sum the same solutes
-const lastSourceKey: string[] = [];
+let lastSourceKey: string[] = [];
+let sourceKeyScratch: string[] = [];
 let lastSourceLine = '';
-
-/** The three texts a solute adds to the source line's key: what the line prints (a custom form's label may change under the same part key). */
-function sourceKeyAt(s: Pending, part: number, w: number, temperatureC: number): string {
-  if (part === 0) return s.fit ? s.fit.formula : s.first.label;
-  if (part === 1) return s.second && !s.fit ? s.second.label : '';
-  return fittedAt(s, w, temperatureC) ? 'fit' : 'estimate';
-}
 
 /** The source line of a density: the last one when the solutes are the same, else from the cache of lines seen before. */
 function sourceOf(pending: Pending[], w: number, temperatureC: number, solutes: () => DensitySolute[]): string {
-  let same = lastSourceKey.length === 3 * pending.length;
-  for (let k = 0; same && k < lastSourceKey.length; k++) same = lastSourceKey[k] === sourceKeyAt(pending[(k / 3) | 0], k % 3, w, temperatureC);
+  // keyed by what the line prints (a custom form's label may change under the same part key)
+  const key = sourceKeyScratch;
+  key.length = 0;
+  for (const s of pending) key.push(s.fit ? s.fit.formula : s.first.label, s.second && !s.fit ? s.second.label : '', fittedAt(s, w, temperatureC) ? 'fit' : 'estimate');
+  let same = key.length === lastSourceKey.length;
+  for (let k = 0; same && k < key.length; k++) same = key[k] === lastSourceKey[k];
   if (same) return lastSourceLine;
-  lastSourceKey.length = 0;
   let node = SOURCE_TEXTS.start();
-  for (const s of pending) {
-    for (let part = 0; part < 3; part++) {
-      const key = sourceKeyAt(s, part, w, temperatureC);
-      lastSourceKey.push(key);
-      node = SOURCE_TEXTS.step(node, key);
-    }
-  }
+  for (const k of key) node = SOURCE_TEXTS.step(node, k);
   lastSourceLine = node.value ?? SOURCE_TEXTS.set(node, sourceText(solutes()));
+  // the key just walked becomes the last one; the previous array is reused for the next key
+  sourceKeyScratch = lastSourceKey;
+  lastSourceKey = key;
   return lastSourceLine;
 }
 

@@ -14,7 +14,7 @@ export interface Moments {
  * `lnCumK[j]` = Σ_{k≤j} ln Kc_k (lnCumK[0] = 0); `lnProton` = ln of the proton variable the
  * constants are expressed in. Fills `fractions` (length n+1) when given.
  */
-export function systemMoments(lnCumK: Float64Array, lnProton: number, out: Moments, fractions?: Float64Array): void {
+export function systemMoments(lnCumK: Float64Array, lnProton: number, out: Moments, fractions?: Float64Array | number[]): void {
   const n = lnCumK.length - 1;
   let maxLog = -Infinity;
   for (let j = 0; j <= n; j++) {
@@ -35,19 +35,14 @@ export function systemMoments(lnCumK: Float64Array, lnProton: number, out: Momen
   if (fractions) for (let j = 0; j <= n; j++) fractions[j] /= sum;
 }
 
+// the moments fractionsAt does not return
+const momentsScratch: Moments = { mean: 0, variance: 0 };
+
 /** Fractions of each form, most protonated first, for cumulative ln-constants and ln(proton variable). */
 export function fractionsAt(lnCumK: Float64Array, lnProton: number): number[] {
-  // the same arithmetic as systemMoments, written straight into the array returned (Array.from of a typed array walks an iterator)
-  const n = lnCumK.length;
-  let maxLog = -Infinity;
-  for (let j = 0; j < n; j++) maxLog = Math.max(maxLog, lnCumK[j] - j * lnProton);
+  // a plain array filled in place (Array.from of a typed array walks an iterator)
   const fractions: number[] = [];
-  let sum = 0;
-  for (let j = 0; j < n; j++) {
-    const w = Math.exp(lnCumK[j] - j * lnProton - maxLog);
-    fractions.push(w);
-    sum += w;
-  }
-  for (let j = 0; j < n; j++) fractions[j] /= sum;
+  for (let j = 0; j < lnCumK.length; j++) fractions.push(0);
+  systemMoments(lnCumK, lnProton, momentsScratch, fractions);
   return fractions;
 }
