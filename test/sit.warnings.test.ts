@@ -1,5 +1,5 @@
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
-import { ProticError, parseModel } from '../src/engine';
+import { PHSensitivity, ProticError, buildContents, parseModel, prepareProblem, solve } from '../src/engine';
 import * as impl from '../src/functions/impl';
 import { uncertaintyBudget } from '../src/functions/uncertainty';
 import * as sitModule from '../src/engine/sit';
@@ -75,11 +75,13 @@ describe('sit\'s own warnings', () => {
     expect(model).toMatch(/^sit, 25 °C; .*Σ ε·m \(SIT.*water activity 0\.93\d{3} in Kw/);
   });
 
-  test('UNCERTAINTY refuses sit with a coded failure', () => {
+  test('the implicit sensitivities refuse sit with a coded failure (UNCERTAINTY under sit differences full solves instead)', () => {
     let error: unknown;
-    try { uncertaintyBudget(PHOSPHATE, amounts(0.5), UNITS, 1, 25, 'sit'); } catch (e) { error = e; }
+    const eq = solve(prepareProblem(buildContents([{ reagent: 'NaCl', amount: 0.5, unit: 'M', row: 1 }], 1), 25, 'sit'));
+    try { new PHSensitivity(eq); } catch (e) { error = e; }
     expect(error).toBeInstanceOf(ProticError);
     expect((error as ProticError).failure).toMatchObject({ code: 'bad_model', argument: 'model' });
+    expect(uncertaintyBudget(PHOSPHATE, amounts(0.5), UNITS, 1, 25, 'sit').method).toContain('central differences of full sit solves');
   });
 });
 

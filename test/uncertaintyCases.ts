@@ -29,9 +29,9 @@ function rng(seed: number): () => number {
  * standard deviation), each draw solved by the engine itself, u(pH) the standard deviation of the results.
  * The draws change A and ρw with temperature too, which the linear budget leaves out.
  */
-export function monteCarlo(c: Case, draws: number, seed: number): number {
+export function monteCarlo(c: Case, draws: number, seed: number, model: 'davies' | 'sit' = 'davies'): number {
   const [, reagents, amounts, units, volumeL, temperatureC, amountTol, volumeTol, temperatureTol] = c;
-  const budget = uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), volumeL, temperatureC, null, amountTol.map((t) => [t]), volumeTol, temperatureTol);
+  const budget = uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), volumeL, temperatureC, model, amountTol.map((t) => [t]), volumeTol, temperatureTol);
   const pKaLines = budget.lines.filter((l) => l.input.startsWith('pKa '));
   const random = rng(seed);
   const uniform = (half: number) => (2 * random() - 1) * half;
@@ -39,7 +39,7 @@ export function monteCarlo(c: Case, draws: number, seed: number): number {
   let sum = 0, sumSq = 0;
   for (let d = 0; d < draws; d++) {
     const rows: MixtureRow[] = reagents.map((reagent, i) => ({ reagent, amount: amounts[i] + uniform(amountTol[i]), unit: units[i], row: i + 1 }));
-    const problem = prepareProblem(buildContents(rows, volumeL + uniform(volumeTol)), temperatureC + uniform(temperatureTol), 'davies');
+    const problem = prepareProblem(buildContents(rows, volumeL + uniform(volumeTol)), temperatureC + uniform(temperatureTol), model);
     let line = 0;
     const shifts = problem.systems.map((s) => s.system.steps.map(() => {
       const l = pKaLines[line++];
@@ -54,7 +54,7 @@ export function monteCarlo(c: Case, draws: number, seed: number): number {
 }
 
 /** The linear budget's u(pH) for a case. */
-export function linearU(c: Case): number {
+export function linearU(c: Case, model: 'davies' | 'sit' = 'davies'): number {
   const [, reagents, amounts, units, volumeL, temperatureC, amountTol, volumeTol, temperatureTol] = c;
-  return uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), volumeL, temperatureC, null, amountTol.map((t) => [t]), volumeTol, temperatureTol).combined;
+  return uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), volumeL, temperatureC, model, amountTol.map((t) => [t]), volumeTol, temperatureTol).combined;
 }

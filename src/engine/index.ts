@@ -45,6 +45,8 @@ export { adjustedStockComposition, parseAdjustedStock } from './adjustedStock';
 export type { AdjustedStockText } from './adjustedStock';
 export { pHWithStepPKa, withStepPKa } from './alternative';
 export { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
+export { budgetSensitivities } from './budgetSensitivities';
+export type { BudgetSensitivities } from './budgetSensitivities';
 export { LADDER_EFFECTS, handLadder } from './handcheck';
 export type { HandLadder } from './handcheck';
 export { CROSSING_SCAN_STEP_C, temperatureForPH, temperatureRangeOf } from './temperatureCrossing';

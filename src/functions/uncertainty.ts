@@ -1,11 +1,12 @@
-import { PHSensitivity, buildContents, fail, parseModel, parseUnit, prepareProblem, rowAmountSensitivities, solve, volumeSensitivity } from '../engine';
+import { budgetSensitivities, fail, parseModel, parseUnit } from '../engine';
 import { TEMPERATURE_RULE, VOLUME_RULE, isBlank, mixtureRows, optionalNumber, requiredNumber, toMatrix } from './args';
 import type { Cell } from './args';
 import type { CellScalar } from './impl';
 
 // UNCERTAINTY: the GUM (JCGM 100:2008) budget of a computed pH. Tolerances typed as ± limits are rectangular
 // distributions, u = a/√3 (GUM 4.3.7); a constant's stated ± is taken as its standard uncertainty; sensitivities are
-// the solver's implicit derivatives (src/engine/uncertainty.ts); u(pH) = √Σ (c·u)², U = 2 u (k = 2).
+// the solver's implicit derivatives, or under sit central differences of full solves (src/engine/budgetSensitivities.ts);
+// u(pH) = √Σ (c·u)², U = 2 u (k = 2).
 
 export const UNCERTAINTY_HEADER = ['input', 'value', 'unit', '± limit or stated u', 'distribution', 'standard uncertainty u', 'sensitivity ∂pH/∂x', 'contribution |∂pH/∂x|·u (pH)', 'note'];
 
@@ -29,7 +30,7 @@ export interface BudgetLine { input: string; value: number; unit: string; limit:
 
 /** The budget lines and the combined result, for the cell function, the tests and the bench. */
 export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, temperature?: Cell, model?: Cell,
-  amountTolerances?: Cell, volumeTolerance?: Cell, temperatureTolerance?: Cell): { pH: number; lines: BudgetLine[]; combined: number } {
+  amountTolerances?: Cell, volumeTolerance?: Cell, temperatureTolerance?: Cell): { pH: number; lines: BudgetLine[]; combined: number; method: string } {
   const rows = mixtureRows(reagents, amounts, units);
   const volumeL = requiredNumber(volume, 'volume', VOLUME_RULE);
   const temperatureC = optionalNumber(temperature, 'temperature', 25, TEMPERATURE_RULE);
@@ -38,35 +39,34 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   const tol = tolerances(amountTolerances ?? null, cellCount);
   const volTol = optionalNumber(volumeTolerance, 'volumeTolerance', 0, { min: 0, max: 1e6, expected: 'a ± tolerance of the volume, L' });
   const tTol = optionalNumber(temperatureTolerance, 'temperatureTolerance', 0, { min: 0, max: 50, expected: 'a ± tolerance of the temperature, °C' });
-  const contents = buildContents(rows, volumeL);
-  const eq = solve(prepareProblem(contents, temperatureC, activityModel));
-  const sens = new PHSensitivity(eq);
+  const sens = budgetSensitivities(rows, volumeL, temperatureC, activityModel);
+  const sided = (input: string, note: string): string => (sens.oneSided.includes(input) ? [note, 'a one-sided difference: the other side is outside the data\'s range'].filter(Boolean).join('; ') : note);
   const lines: BudgetLine[] = [];
-  const perAmount = rowAmountSensitivities(sens, contents, rows.map((r) => r.amount));
   rows.forEach((r, i) => {
     const a = tol[r.row - 1];
-    lines.push({ input: `amount: ${r.reagent}`, value: r.amount, unit: r.unit, limit: a, distribution: 'rectangular', u: a / RECT, sensitivity: perAmount[i], note: a === 0 ? 'no tolerance given' : '' });
+    lines.push({ input: `amount: ${r.reagent}`, value: r.amount, unit: r.unit, limit: a, distribution: 'rectangular', u: a / RECT, sensitivity: sens.perAmount[i], note: sided(`amount: ${r.reagent}`, a === 0 ? 'no tolerance given' : '') });
   });
   const concentrationRows = rows.map((r) => parseUnit(r.unit, 'units', r.row).kind === 'concentration');
-  lines.push({ input: 'final volume', value: volumeL, unit: 'L', limit: volTol, distribution: 'rectangular', u: volTol / RECT, sensitivity: volumeSensitivity(sens, contents, concentrationRows),
-    note: concentrationRows.every(Boolean) ? 'rows given as concentrations do not depend on it' : '' });
-  lines.push({ input: 'temperature', value: temperatureC, unit: '°C', limit: tTol, distribution: 'rectangular', u: tTol / RECT, sensitivity: sens.perKelvin(),
-    note: 'through each pKa (its ΔrH°, ΔrCp°), pKw, the Debye–Hückel A and the kg of water per litre (the solution density)' });
-  const p = eq.problem;
+  lines.push({ input: 'final volume', value: volumeL, unit: 'L', limit: volTol, distribution: 'rectangular', u: volTol / RECT, sensitivity: sens.perLitre,
+    note: sided('final volume', concentrationRows.every(Boolean) ? 'rows given as concentrations do not depend on it' : '') });
+  lines.push({ input: 'temperature', value: temperatureC, unit: '°C', limit: tTol, distribution: 'rectangular', u: tTol / RECT, sensitivity: sens.perKelvin,
+    note: sided('temperature', 'through each pKa (its ΔrH°, ΔrCp°), pKw, the Debye–Hückel A and the kg of water per litre (the solution density)') });
+  const p = sens.eq.problem;
   p.systems.forEach((s, i) => {
     if (p.totalsM[i] <= 0) return;
     s.system.steps.forEach((step, k) => {
       const stated = step.provenance.pKa.pKaPlusMinus;
+      const input = `pKa ${s.system.name} ${k + 1}`, sensitivity = sens.perPKa[i][k];
       lines.push(stated !== undefined
-        ? { input: `pKa ${s.system.name} ${k + 1}`, value: step.pKa, unit: '', limit: stated, distribution: 'normal (stated ± as u)', u: stated, sensitivity: sens.perPKa(i, k), note: `stated in ${step.provenance.pKa.source}` }
-        : { input: `pKa ${s.system.name} ${k + 1}`, value: step.pKa, unit: '', limit: ASSUMED_PKA_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKA_HALF_WIDTH / RECT, sensitivity: sens.perPKa(i, k),
-          note: `no uncertainty from the source (${step.provenance.pKa.level}): ±${ASSUMED_PKA_HALF_WIDTH} assumed` });
+        ? { input, value: step.pKa, unit: '', limit: stated, distribution: 'normal (stated ± as u)', u: stated, sensitivity, note: sided(input, `stated in ${step.provenance.pKa.source}`) }
+        : { input, value: step.pKa, unit: '', limit: ASSUMED_PKA_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKA_HALF_WIDTH / RECT, sensitivity,
+          note: sided(input, `no uncertainty from the source (${step.provenance.pKa.level}): ±${ASSUMED_PKA_HALF_WIDTH} assumed`) });
     });
   });
-  lines.push({ input: 'pKw', value: p.lnKw / -Math.LN10, unit: '', limit: ASSUMED_PKW_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKW_HALF_WIDTH / RECT, sensitivity: sens.perPKw(),
-    note: `no uncertainty read from IAPWS R11-07: ±${ASSUMED_PKW_HALF_WIDTH} assumed` });
+  lines.push({ input: 'pKw', value: p.lnKw / -Math.LN10, unit: '', limit: ASSUMED_PKW_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKW_HALF_WIDTH / RECT, sensitivity: sens.perPKw,
+    note: sided('pKw', `no uncertainty read from IAPWS R11-07: ±${ASSUMED_PKW_HALF_WIDTH} assumed`) });
   const combined = Math.sqrt(lines.reduce((sum, l) => sum + (l.sensitivity * l.u) ** 2, 0));
-  return { pH: eq.pH, lines, combined };
+  return { pH: sens.eq.pH, lines, combined, method: sens.method };
 }
 
 /** The budget as a spill: pH, one line per input, then u(pH) and U (k = 2). */
@@ -76,7 +76,7 @@ export function uncertainty(reagents: Cell, amounts: Cell, units: Cell, volume: 
   const fin = (v: number): number => { if (!Number.isFinite(v)) fail({ code: 'no_convergence', argument: 'reagents', received: String(v), expected: 'a finite sensitivity; please report this input' }); return v; };
   const table: CellScalar[][] = [UNCERTAINTY_HEADER, ['pH', fin(b.pH), '', '', '', '', '', '', 'the value the budget is for']];
   for (const l of b.lines) table.push([l.input, l.value, l.unit, l.limit, l.distribution, fin(l.u), fin(l.sensitivity), fin(Math.abs(l.sensitivity) * l.u), l.note]);
-  table.push(['combined standard uncertainty u(pH)', fin(b.combined), '', '', '', '', '', '', 'GUM (JCGM 100:2008), first-order propagation, inputs uncorrelated']);
+  table.push(['combined standard uncertainty u(pH)', fin(b.combined), '', '', '', '', '', '', `GUM (JCGM 100:2008), first-order propagation, inputs uncorrelated; ${b.method}`]);
   table.push(['expanded uncertainty U (k = 2)', fin(2 * b.combined), '', '', '', '', '', '', 'about 95 % coverage for a near-normal output']);
   return table;
 }
