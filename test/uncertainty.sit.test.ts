@@ -39,6 +39,16 @@ describe('UNCERTAINTY under sit', () => {
     expect(Math.abs(b.lines.find((l) => l.input === 'pKw')!.sensitivity)).toBeLessThan(1e-6);
   });
 
+  test('a row at amount 0 has its slope too (NaCl 0 M beside 10 mM HCl), against the closed form\'s forward derivative', () => {
+    const b = uncertaintyBudget([['HCl'], ['NaCl']], [[10], [0]], [['mM'], ['M']], 1, 25, 'sit', [[0.1], [0.01]], 0, 0);
+    const h = 1e-5; // Richardson-extrapolated forward difference of the closed form, error of order h²
+    const dSalt = (4 * closedFormPH(0.01, h) - closedFormPH(0.01, 2 * h) - 3 * closedFormPH(0.01, 0)) / (2 * h);
+    expect(Math.abs(b.lines[1].sensitivity / dSalt - 1)).toBeLessThan(1e-6);
+    expect(b.lines[1].note).toContain('at amount 0, forward');
+    // a tolerance on a row at 0 counts: its contribution is no silent 0
+    expect(Math.abs(b.lines[1].sensitivity) * b.lines[1].u).toBeGreaterThan(1e-4);
+  });
+
   // salty mixtures of our own, as a process table holds them
   const SALTY: Case[] = [
     ['phosphate in 1 M NaCl', ['KH2PO4', 'Na2HPO4', 'NaCl'], [3.4, 3.55, 58.44], ['g', 'g', 'g'], 1, 25, [0.01, 0.01, 0.1], 0.002, 0.5],

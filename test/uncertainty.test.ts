@@ -38,6 +38,18 @@ describe('UNCERTAINTY: one input', () => {
   });
 });
 
+describe('UNCERTAINTY: a row at amount 0', () => {
+  // a batch record's pH-adjustment row at 0 ± its tolerance: the slope at 0 is the reagent's own, not a silent 0
+  const solvePH = (amounts: number[]): number => solve(prepareProblem(buildContents(['KH2PO4', 'Na2HPO4', 'NaCl'].map((reagent, i) => ({ reagent, amount: amounts[i], unit: 'g', row: i + 1 })), 1), 25, 'davies')).pH;
+  test.each([[[3.4, 0, 5.8], 1, 1e-6], [[3.4, 3.55, 0], 2, 1e-4]])('amounts %j: row %i against a forward difference of the full solve', (amounts, r, h) => {
+    const b = uncertaintyBudget([['KH2PO4'], ['Na2HPO4'], ['NaCl']], amounts.map((a) => [a]), [['g'], ['g'], ['g']], 1, 25, 'davies', [[0.01], [0.01], [0.01]], 0, 0);
+    const at = (d: number): number => solvePH(amounts.map((a, k) => (k === r ? d : a)));
+    const numeric = (4 * at(h) - at(2 * h) - 3 * at(0)) / (2 * h); // Richardson-extrapolated forward difference, error of order h²
+    expect(Math.abs(b.lines[r].sensitivity / numeric - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(b.lines[r].sensitivity)).toBeGreaterThan(1e-3);
+  });
+});
+
 describe('UNCERTAINTY: each implicit sensitivity against a central difference of the full solve', () => {
   // The code under test never differences the solve; here the solve is re-run at x ± h as an independent check.
   const solvePH = (reagents: string[], amounts: number[], units: string[], volumeL: number, temperatureC: number, shift?: (p: ReturnType<typeof prepareProblem>) => void) => {

@@ -8,6 +8,7 @@ import type { Equilibrium } from './solver';
 import { solve } from './solver';
 import { parseUnit } from './units';
 import { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
+import { bufferCapacity } from './results';
 
 // The pH sensitivities an uncertainty budget needs, one shape for every model. Davies, Bates–Guggenheim and ideal:
 // the solver's implicit derivatives (uncertainty.ts). sit: each species' ε term moves with the composition and the
@@ -17,7 +18,7 @@ import { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivit
 /** dpH per unit of each input of a budget, at the solution `eq`. */
 export interface BudgetSensitivities {
   eq: Equilibrium;
-  /** per row, dpH per unit of its amount in the unit it was typed in; 0 for a row whose amount is 0 */
+  /** per row, dpH per unit of its amount in the unit it was typed in (at amount 0 too: a row's moles are proportional to its amount) */
   perAmount: number[];
   /** dpH per litre of final volume */
   perLitre: number;
@@ -29,8 +30,8 @@ export interface BudgetSensitivities {
   perPKw: number;
   /** how the sensitivities were obtained, for the budget's note */
   method: string;
-  /** inputs whose difference had to be one-sided (the other side is outside the data's range) */
-  oneSided: string[];
+  /** inputs whose difference had to be one-sided, each with the reason */
+  oneSided: { input: string; reason: string }[];
 }
 
 /** Relative step of an amount or the volume for the central differences (truncation about 1e-8 relative, solve noise below 1e-8). */
@@ -49,12 +50,14 @@ export function budgetSensitivities(rows: MixtureRow[], volumeL: number, tempera
   const contents = buildContents(rows, volumeL);
   const eq = solve(prepareProblem(contents, temperatureC, model));
   const concentrationRows = rows.map((r) => parseUnit(r.unit, 'units', r.row).kind === 'concentration');
-  if (model === 'sit') return resolvedSensitivities(eq, rows, volumeL, temperatureC, model, concentrationRows.every(Boolean));
+  // moles per unit of each row's amount: from the row itself, or for a row at 0 from the same row at one unit
+  const molesPerUnit = rows.map((row, r) => (row.amount > 0 ? contents.rows[r].moles / row.amount : buildContents([{ ...row, amount: 1 }], volumeL).rows[0].moles));
+  if (model === 'sit') return resolvedSensitivities(eq, rows, volumeL, temperatureC, model, concentrationRows.every(Boolean), molesPerUnit);
   const sens = new PHSensitivity(eq);
   const p = eq.problem;
   return {
     eq,
-    perAmount: rowAmountSensitivities(sens, contents, rows.map((r) => r.amount)),
+    perAmount: rowAmountSensitivities(sens, contents, molesPerUnit),
     perLitre: volumeSensitivity(sens, contents, concentrationRows),
     perKelvin: sens.perKelvin(),
     perPKa: p.systems.map((s, i) => s.system.steps.map((_, k) => sens.perPKa(i, k))),
@@ -66,8 +69,8 @@ export function budgetSensitivities(rows: MixtureRow[], volumeL: number, tempera
 
 /** Under sit: every sensitivity a central difference of full solves, each started from the solution's own ln h. */
 function resolvedSensitivities(eq: Equilibrium, rows: MixtureRow[], volumeL: number, temperatureC: number, model: ActivityModel,
-  allConcentrations: boolean): BudgetSensitivities {
-  const oneSided: string[] = [];
+  allConcentrations: boolean, molesPerUnit: number[]): BudgetSensitivities {
+  const oneSided: { input: string; reason: string }[] = [];
   const pHAt = (r: MixtureRow[], v: number, t: number, shift?: (p: Problem) => void): number => {
     const p = prepareProblem(buildContents(r, v), t, model);
     shift?.(p);
@@ -80,14 +83,22 @@ function resolvedSensitivities(eq: Equilibrium, rows: MixtureRow[], volumeL: num
     };
     const up = side(h), down = side(-h);
     if (up !== undefined && down !== undefined) return (up - down) / (2 * h);
-    oneSided.push(input);
+    oneSided.push({ input, reason: 'the other side is outside the data\'s range' });
     if (up !== undefined) return (up - eq.pH) / h;
     if (down !== undefined) return (eq.pH - down) / h;
     return at(h); // both sides refused: let the refusal through
   };
-  const perAmount = rows.map((row, r) => (row.amount > 0
-    ? slope(`amount: ${row.reagent}`, (d) => pHAt(rows.map((x, k) => (k === r ? { ...x, amount: x.amount + d } : x)), volumeL, temperatureC), row.amount * RELATIVE_STEP)
-    : 0));
+  const withAmount = (r: number, amount: number): number => pHAt(rows.map((x, k) => (k === r ? { ...x, amount } : x)), volumeL, temperatureC);
+  const perAmount = rows.map((row, r) => {
+    const input = `amount: ${row.reagent}`;
+    if (row.amount > 0) return slope(input, (d) => withAmount(r, row.amount + d), row.amount * RELATIVE_STEP);
+    if (!(molesPerUnit[r] > 0)) return 0; // water, or a row that releases nothing
+    // at 0 a step back would be a negative amount: forward, Richardson-extrapolated ((4 f(h) − f(2h) − 3 f(0)) / 2h, error
+    // of order h²), with the step the amount that moves the pH by about 1e-4 (β·1e-4 mol/L of base equivalent)
+    oneSided.push({ input, reason: 'at amount 0, forward (a step back would be a negative amount)' });
+    const h = (RELATIVE_STEP * Math.max(bufferCapacity(eq), 1e-9) * volumeL) / molesPerUnit[r];
+    return (4 * withAmount(r, h) - withAmount(r, 2 * h) - 3 * eq.pH) / (2 * h);
+  });
   const p = eq.problem;
   return {
     eq,

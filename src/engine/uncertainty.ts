@@ -36,7 +36,7 @@ export class PHSensitivity {
     // the implicit derivatives hold each species' specific-ion offset fixed, but under sit it moves with every
     // amount (Na⁺ from a salt row, the forms with the pH): refused rather than a budget that leaves that out
     if (p.sit) {
-      fail({ code: 'bad_model', argument: 'model', received: 'sit', expected: 'davies, bates-guggenheim or ideal: the uncertainty budget is not yet available under sit' });
+      fail({ code: 'bad_model', argument: 'model', received: 'sit', expected: 'davies, bates-guggenheim or ideal: implicit derivatives hold the sit ε terms fixed (under sit the budget differences full solves, budgetSensitivities.ts)' });
     }
     const L = lnGammaZ2For(p, eq.ionicStrengthM);
     jointJacobian(p, eq.lnH, L, joint);
@@ -153,23 +153,30 @@ function lnWaterMoved(p: Problem, contents: Contents, deltaM: number[]): number 
   return Math.log(solutionDensity(parts, p.temperatureC).waterKgPerL);
 }
 
-/** d ln w per unit step of the composition along deltaPerUnit (mol/L of each row), by a central difference of the density formula. */
-function lnWaterSlope(p: Problem, contents: Contents, deltaPerUnit: number[], unit: number): number {
+/**
+ * d ln w per unit step of the composition along deltaPerUnit (mol/L of each row), by a central difference of the density
+ * formula; `forward`: a forward difference, for a row at amount 0 (a step back would be a negative amount).
+ */
+function lnWaterSlope(p: Problem, contents: Contents, deltaPerUnit: number[], unit: number, forward = false): number {
   const h = 1e-4 * unit;
-  return (lnWaterMoved(p, contents, deltaPerUnit.map((d) => d * h)) - lnWaterMoved(p, contents, deltaPerUnit.map((d) => -d * h))) / (2 * h);
+  const back = forward ? lnWaterMoved(p, contents, deltaPerUnit.map(() => 0)) : lnWaterMoved(p, contents, deltaPerUnit.map((d) => -d * h));
+  return (lnWaterMoved(p, contents, deltaPerUnit.map((d) => d * h)) - back) / (forward ? h : 2 * h);
 }
 
 /**
  * Per row: dpH per unit of its amount (in the unit it was typed in), through what the row releases, and through the
- * kg of water per litre the row's solute changes (the solution's density).
+ * kg of water per litre the row's solute changes (the solution's density). `molesPerUnit[r]`: the row's moles of
+ * reagent per unit of its amount (a row's moles are proportional to its amount), so a row at 0 has its slope too.
  */
-export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, amounts: number[]): number[] {
+export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, molesPerUnit: number[]): number[] {
   const p = sens.eq.problem;
   const perLnWater = sens.perLnWaterDensity();
   return contents.rows.map((row, r) => {
-    if (!(amounts[r] > 0)) return 0;
-    const along = contents.rows.map((_, k) => (k === r ? row.moles / amounts[r] / contents.volumeL : 0));
-    const viaDensity = perLnWater * lnWaterSlope(p, contents, along, amounts[r]);
+    const perUnit = molesPerUnit[r];
+    if (!(perUnit > 0)) return 0; // water, or a row that releases nothing
+    const along = contents.rows.map((_, k) => (k === r ? perUnit / contents.volumeL : 0));
+    // the density formula's slope by a difference of ± 1e-4 of the row's amount, or of + 1e-4 of one unit at amount 0
+    const viaDensity = perLnWater * (row.moles > 0 ? lnWaterSlope(p, contents, along, row.moles / perUnit) : lnWaterSlope(p, contents, along, 1, true));
     let perMole = 0; // dpH per mole of reagent formula units, in the final volume
     for (const s of row.reagent.systems) {
       const i = p.systems.findIndex((x) => x.system.id === s.systemId);
@@ -179,7 +186,7 @@ export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, 
       const found = p.ions.find((x) => x.id === ion.ionId);
       if (found) perMole += (ion.count / contents.volumeL) * sens.perIonM(found.charge);
     }
-    return (perMole * row.moles) / amounts[r] + viaDensity;
+    return perMole * perUnit + viaDensity;
   });
 }
 

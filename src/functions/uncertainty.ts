@@ -40,7 +40,10 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   const volTol = optionalNumber(volumeTolerance, 'volumeTolerance', 0, { min: 0, max: 1e6, expected: 'a ± tolerance of the volume, L' });
   const tTol = optionalNumber(temperatureTolerance, 'temperatureTolerance', 0, { min: 0, max: 50, expected: 'a ± tolerance of the temperature, °C' });
   const sens = budgetSensitivities(rows, volumeL, temperatureC, activityModel);
-  const sided = (input: string, note: string): string => (sens.oneSided.includes(input) ? [note, 'a one-sided difference: the other side is outside the data\'s range'].filter(Boolean).join('; ') : note);
+  const sided = (input: string, note: string): string => {
+    const one = sens.oneSided.find((x) => x.input === input);
+    return one ? [note, `a one-sided difference: ${one.reason}`].filter(Boolean).join('; ') : note;
+  };
   const lines: BudgetLine[] = [];
   rows.forEach((r, i) => {
     const a = tol[r.row - 1];
