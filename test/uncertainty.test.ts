@@ -38,6 +38,23 @@ describe('UNCERTAINTY: one input', () => {
   });
 });
 
+describe('UNCERTAINTY: the volume line with rows given as mass concentrations or normality', () => {
+  // g/L, mg/mL, % w/v and N are concentrations of the final solution, like mol/L: the volume does not dilute them
+  const cases: [string[], number[], string[]][] = [
+    [['KH2PO4', 'Na2HPO4', 'NaCl'], [3.4, 3.55, 5], ['g/L', 'g/L', 'g']],
+    [['KH2PO4', 'Na2HPO4', 'NaCl'], [3.4, 3.55, 0.5], ['g', 'g', '% w/v']],
+    [['KH2PO4', 'Na2HPO4', 'NaCl'], [3.4, 3.55, 5], ['mg/mL', 'g', 'g']],
+    [['acetic acid', 'NaOH'], [6, 0.05], ['g', 'N']],
+  ];
+  test.each(cases)('%j in %j %j: against a central difference of the full solve', (reagents, amounts, units) => {
+    const rows = (): MixtureRow[] => reagents.map((reagent, i) => ({ reagent, amount: amounts[i], unit: units[i], row: i + 1 }));
+    const at = (volumeL: number): number => solve(prepareProblem(buildContents(rows(), volumeL), 25, 'davies')).pH;
+    const b = uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), 1, 25, 'davies', null, 0.002, 0);
+    const numeric = (at(1 + 1e-5) - at(1 - 1e-5)) / 2e-5;
+    expect(Math.abs(b.lines.find((l) => l.input === 'final volume')!.sensitivity - numeric)).toBeLessThan(1e-6 * Math.max(1, Math.abs(numeric)));
+  });
+});
+
 describe('UNCERTAINTY: a row at amount 0', () => {
   // a batch record's pH-adjustment row at 0 ± its tolerance: the slope at 0 is the reagent's own, not a silent 0
   const solvePH = (amounts: number[]): number => solve(prepareProblem(buildContents(['KH2PO4', 'Na2HPO4', 'NaCl'].map((reagent, i) => ({ reagent, amount: amounts[i], unit: 'g', row: i + 1 })), 1), 25, 'davies')).pH;

@@ -6,7 +6,7 @@ import type { Problem } from './problem';
 import { prepareProblem } from './problem';
 import type { Equilibrium } from './solver';
 import { solve } from './solver';
-import { parseUnit } from './units';
+import { isConcentrationUnit, parseUnit } from './units';
 import { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
 import { bufferCapacity } from './results';
 
@@ -30,6 +30,8 @@ export interface BudgetSensitivities {
   perPKw: number;
   /** how the sensitivities were obtained, for the budget's note */
   method: string;
+  /** per row: given as a concentration in the final solution (mol/L, g/L, % w/v, N), so the volume does not dilute it */
+  concentrationRows: boolean[];
   /** inputs whose difference had to be one-sided, each with the reason */
   oneSided: { input: string; reason: string }[];
 }
@@ -49,10 +51,10 @@ const CONSTANT_STEP = 1e-3;
 export function budgetSensitivities(rows: MixtureRow[], volumeL: number, temperatureC: number, model: ActivityModel): BudgetSensitivities {
   const contents = buildContents(rows, volumeL);
   const eq = solve(prepareProblem(contents, temperatureC, model));
-  const concentrationRows = rows.map((r) => parseUnit(r.unit, 'units', r.row).kind === 'concentration');
+  const concentrationRows = rows.map((r) => isConcentrationUnit(parseUnit(r.unit, 'units', r.row)));
   // moles per unit of each row's amount: from the row itself, or for a row at 0 from the same row at one unit
   const molesPerUnit = rows.map((row, r) => (row.amount > 0 ? contents.rows[r].moles / row.amount : buildContents([{ ...row, amount: 1 }], volumeL).rows[0].moles));
-  if (model === 'sit') return resolvedSensitivities(eq, rows, volumeL, temperatureC, model, concentrationRows.every(Boolean), molesPerUnit);
+  if (model === 'sit') return { ...resolvedSensitivities(eq, rows, volumeL, temperatureC, model, concentrationRows.every(Boolean), molesPerUnit), concentrationRows };
   const sens = new PHSensitivity(eq);
   const p = eq.problem;
   return {
@@ -63,13 +65,14 @@ export function budgetSensitivities(rows: MixtureRow[], volumeL: number, tempera
     perPKa: p.systems.map((s, i) => s.system.steps.map((_, k) => sens.perPKa(i, k))),
     perPKw: sens.perPKw(),
     method: 'sensitivities: implicit derivatives of the solve',
+    concentrationRows,
     oneSided: [],
   };
 }
 
 /** Under sit: every sensitivity a central difference of full solves, each started from the solution's own ln h. */
 function resolvedSensitivities(eq: Equilibrium, rows: MixtureRow[], volumeL: number, temperatureC: number, model: ActivityModel,
-  allConcentrations: boolean, molesPerUnit: number[]): BudgetSensitivities {
+  allConcentrations: boolean, molesPerUnit: number[]): Omit<BudgetSensitivities, 'concentrationRows'> {
   const oneSided: { input: string; reason: string }[] = [];
   const pHAt = (r: MixtureRow[], v: number, t: number, shift?: (p: Problem) => void): number => {
     const p = prepareProblem(buildContents(r, v), t, model);

@@ -63,6 +63,15 @@ export function unitCaseHint(text: string): string | undefined {
   return `${meant.map((u) => u.symbol).join(' or ')} (prefixes keep their SI case${mega})`;
 }
 
+/**
+ * A concentration in the final solution (mol/L, g/L, % w/v, N): a row in it holds its value times the final volume,
+ * so its concentration does not change with the volume (mixture.ts, rowMoles).
+ * @example isConcentrationUnit(parseUnit('g/L', 'units')) // true; parseUnit('g', ...) → false
+ */
+export function isConcentrationUnit(unit: Unit): boolean {
+  return unit.kind === 'concentration' || unit.kind === 'massConcentration' || unit.kind === 'normality';
+}
+
 export function parseUnit(value: unknown, argument: string, row?: number, allowed?: readonly UnitKind[]): Unit {
   const unit = typeof value === 'string' ? findUnit(value) : undefined;
   const kinds = allowed ?? ['mass', 'amount', 'concentration', 'volume', 'massConcentration', 'normality'];

@@ -1,4 +1,4 @@
-import { budgetSensitivities, fail, parseModel, parseUnit } from '../engine';
+import { budgetSensitivities, fail, parseModel } from '../engine';
 import { TEMPERATURE_RULE, VOLUME_RULE, isBlank, mixtureRows, optionalNumber, requiredNumber, toMatrix } from './args';
 import type { Cell } from './args';
 import type { CellScalar } from './impl';
@@ -49,9 +49,8 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
     const a = tol[r.row - 1];
     lines.push({ input: `amount: ${r.reagent}`, value: r.amount, unit: r.unit, limit: a, distribution: 'rectangular', u: a / RECT, sensitivity: sens.perAmount[i], note: sided(`amount: ${r.reagent}`, a === 0 ? 'no tolerance given' : '') });
   });
-  const concentrationRows = rows.map((r) => parseUnit(r.unit, 'units', r.row).kind === 'concentration');
   lines.push({ input: 'final volume', value: volumeL, unit: 'L', limit: volTol, distribution: 'rectangular', u: volTol / RECT, sensitivity: sens.perLitre,
-    note: sided('final volume', concentrationRows.every(Boolean) ? 'rows given as concentrations do not depend on it' : '') });
+    note: sided('final volume', sens.concentrationRows.every(Boolean) ? 'rows given as concentrations do not depend on it' : '') });
   lines.push({ input: 'temperature', value: temperatureC, unit: '°C', limit: tTol, distribution: 'rectangular', u: tTol / RECT, sensitivity: sens.perKelvin,
     note: sided('temperature', 'through each pKa (its ΔrH°, ΔrCp°), pKw, the Debye–Hückel A and the kg of water per litre (the solution density)') });
   const p = sens.eq.problem;
