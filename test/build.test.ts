@@ -146,12 +146,14 @@ describe('the built add-in', () => {
   // catalogue and functions (amino acids, excipients, provenance, STOCK, READBACK, HANDCHECK, UNCERTAINTY, SALTDOSE,
   // the cell cache) and was missed at about 164 KiB; the sit model (its ε table, the specific-ion solve, the departure
   // warning) and the solution-density fits (density.ts, densities.ts) took it to about 188 KiB, and the preparation
-  // caches that made a solve 5× cheaper (part descriptors, species tables, keyTrie.ts) to about 195 KiB. The row asserts
-  // the size of the miss, so it fails when the bundle grows further or when it is brought back under the target (then restore the plain bound).
-  test('what the functions need (runtime, shared chunk, functions): known miss of the 150 KB target, about 195 KiB', () => {
+  // caches that made a solve 5× cheaper (part descriptors, species tables, keyTrie.ts) to about 195 KiB, and UNCERTAINTY
+  // under sit (budgetSensitivities.ts: differences of full solves, rows at amount 0, stocks that fill the volume) to
+  // about 198.6 KiB. The row asserts the size of the miss, so it fails when the bundle grows further or when it is
+  // brought back under the target (then restore the plain bound).
+  test('what the functions need (runtime, shared chunk, functions): known miss of the 150 KB target, about 199 KiB', () => {
     const kib = ['runtime.js', 'shared.js', 'functions.js'].reduce((s, f) => s + statSync(join(out, f)).size, 0) / 1024;
     expect(kib).toBeGreaterThan(150);
-    expect(kib).toBeLessThan(198);
+    expect(kib).toBeLessThan(201);
   });
 
   test('the bundles carry neither the spreadsheet engine nor a test library', () => {

@@ -55,6 +55,29 @@ describe('UNCERTAINTY: the volume line with rows given as mass concentrations or
   });
 });
 
+describe('UNCERTAINTY: where first order does not hold over a ± limit, the line and the combined u say so', () => {
+  // each case's own departure, from full solves at the ends of the ± limit against the budget's sensitivity
+  const cases: [string, string[], number[], string[], number, number[], string][] = [
+    ['an unbuffered row at 0 (1 M HCl into saline)', ['NaCl', '1 M HCl'], [5.8, 0], ['g', 'mL'], 1, [0.01, 0.05], 'davies'],
+    ['an equivalence point', ['0.1 M HCl', '0.1 M NaOH'], [500, 500], ['mL', 'mL'], 1.1, [0.5, 0.5], 'davies'],
+    ['the equivalence point under sit', ['0.1 M HCl', '0.1 M NaOH'], [500, 500], ['mL', 'mL'], 1.1, [0.5, 0.5], 'sit'],
+    ['a phosphate buffer', ['KH2PO4', 'Na2HPO4'], [3.4, 3.55], ['g', 'g'], 1, [0.01, 0.01], 'davies'],
+    ['an acetate buffer under sit', ['acetic acid', 'NaOH', 'NaCl'], [6.0, 2.0, 58.44], ['g', 'g', 'g'], 1, [0.05, 0.02, 0.5], 'sit'],
+  ];
+  test.each(cases)('%s', (name, reagents, amounts, units, volumeL, tol, model) => {
+    const b = uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), volumeL, 25, model, tol.map((t) => [t]), 0, 0);
+    const at = (i: number, d: number) => solve(prepareProblem(buildContents(reagents.map((reagent, k) => ({ reagent, amount: amounts[k] + (k === i ? d : 0), unit: units[k], row: k + 1 })), volumeL), 25, model as 'davies' | 'sit')).pH;
+    reagents.forEach((_r, i) => {
+      const s = b.lines[i].sensitivity, a = tol[i];
+      const ends = [at(i, a) - b.pH, ...(amounts[i] >= a ? [b.pH - at(i, -a)] : [])];
+      const departure = Math.max(...ends.map((m) => Math.abs(m / (s * a) - 1)));
+      expect([i, /not linear/.test(b.lines[i].note)]).toEqual([i, departure > 0.1 && Math.abs(s * a) >= 1e-4]);
+    });
+    expect(b.nonlinear.length > 0).toBe(b.lines.some((l) => /not linear/.test(l.note)));
+    expect(b.nonlinear.length > 0).toBe(/equivalence|unbuffered/.test(name)); // the buffers are linear over their limits
+  });
+});
+
 describe('UNCERTAINTY: a row at amount 0', () => {
   // a batch record's pH-adjustment row at 0 ± its tolerance: the slope at 0 is the reagent's own, not a silent 0
   const solvePH = (amounts: number[]): number => solve(prepareProblem(buildContents(['KH2PO4', 'Na2HPO4', 'NaCl'].map((reagent, i) => ({ reagent, amount: amounts[i], unit: 'g', row: i + 1 })), 1), 25, 'davies')).pH;

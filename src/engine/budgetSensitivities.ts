@@ -1,19 +1,22 @@
 import type { ActivityModel } from './activity';
 import { ProticError } from './failure';
-import { buildContents } from './mixture';
-import type { MixtureRow } from './mixture';
+import { buildContents, contentsWithMoles, molesPerUnit } from './mixture';
+import type { Contents, MixtureRow } from './mixture';
 import type { Problem } from './problem';
 import { prepareProblem } from './problem';
+import { bufferCapacity } from './results';
 import type { Equilibrium } from './solver';
 import { solve } from './solver';
 import { isConcentrationUnit, parseUnit } from './units';
 import { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
-import { bufferCapacity } from './results';
 
 // The pH sensitivities an uncertainty budget needs, one shape for every model. Davies, Bates–Guggenheim and ideal:
 // the solver's implicit derivatives (uncertainty.ts). sit: each species' ε term moves with the composition and the
 // speciation, which the implicit derivatives hold fixed, so each sensitivity is a central difference of two full
-// solves (contents, density, sit offsets and all), as CAPACITY under sit is.
+// solves of the mixture as read (its rows' moles moved, density and sit offsets and all), as CAPACITY under sit is.
+
+/** Which input a sensitivity belongs to: a row by its index in `rows`, the volume, the temperature, a pKa, pKw. */
+export type BudgetInput = { row: number } | 'volume' | 'temperature' | { system: number; step: number } | 'pKw';
 
 /** dpH per unit of each input of a budget, at the solution `eq`. */
 export interface BudgetSensitivities {
@@ -33,15 +36,30 @@ export interface BudgetSensitivities {
   /** per row: given as a concentration in the final solution (mol/L, g/L, % w/v, N), so the volume does not dilute it */
   concentrationRows: boolean[];
   /** inputs whose difference had to be one-sided, each with the reason */
-  oneSided: { input: string; reason: string }[];
+  oneSided: { input: BudgetInput; reason: string }[];
+  /**
+   * The pH of a full solve with one input moved by d (in its unit: the row's, L, °C, pKa or pKw units), every other as
+   * read; for the budget's check of its first-order propagation over each ± limit. Throws a coded failure where the
+   * moved mixture is refused.
+   */
+  pHWith(input: BudgetInput, d: number): number;
 }
 
-/** Relative step of an amount or the volume for the central differences (truncation about 1e-8 relative, solve noise below 1e-8). */
+/** Relative step of an amount or the volume for the central differences. */
 const RELATIVE_STEP = 1e-4;
+/** pH move aimed at by an amount's step: its β-scaled size (truncation of order its square, solve noise 1e-13 below it). */
+const PH_STEP = 1e-4;
 /** Temperature step, °C. */
 const TEMPERATURE_STEP_C = 0.01;
 /** pKa and pKw step. */
 const CONSTANT_STEP = 1e-3;
+
+/** Whether two inputs are the same (for the budget lines' notes). */
+export function sameInput(a: BudgetInput, b: BudgetInput): boolean {
+  if (typeof a === 'string' || typeof b === 'string') return a === b;
+  if ('row' in a) return 'row' in b && a.row === b.row;
+  return 'system' in b && a.system === b.system && a.step === b.step;
+}
 
 /**
  * The budget's sensitivities of the mixture `rows` in `volumeL` at `temperatureC` under `model`.
@@ -52,14 +70,16 @@ export function budgetSensitivities(rows: MixtureRow[], volumeL: number, tempera
   const contents = buildContents(rows, volumeL);
   const eq = solve(prepareProblem(contents, temperatureC, model));
   const concentrationRows = rows.map((r) => isConcentrationUnit(parseUnit(r.unit, 'units', r.row)));
-  // moles per unit of each row's amount: from the row itself, or for a row at 0 from the same row at one unit
-  const molesPerUnit = rows.map((row, r) => (row.amount > 0 ? contents.rows[r].moles / row.amount : buildContents([{ ...row, amount: 1 }], volumeL).rows[0].moles));
-  if (model === 'sit') return { ...resolvedSensitivities(eq, rows, volumeL, temperatureC, model, concentrationRows.every(Boolean), molesPerUnit), concentrationRows };
+  // moles per unit of each row's amount: from the row itself, or for a row at 0 from its reagent and unit
+  const perUnit = rows.map((row, r) => (row.amount > 0 ? contents.rows[r].moles / row.amount : molesPerUnit(row, volumeL)));
+  const pHWith = movedSolve(eq, contents, temperatureC, model, concentrationRows, perUnit);
+  if (model === 'sit') return { ...resolvedSensitivities(eq, pHWith, perUnit, contents, concentrationRows), concentrationRows, pHWith };
   const sens = new PHSensitivity(eq);
   const p = eq.problem;
   return {
     eq,
-    perAmount: rowAmountSensitivities(sens, contents, molesPerUnit),
+    pHWith,
+    perAmount: rowAmountSensitivities(sens, contents, perUnit),
     perLitre: volumeSensitivity(sens, contents, concentrationRows),
     perKelvin: sens.perKelvin(),
     perPKa: p.systems.map((s, i) => s.system.steps.map((_, k) => sens.perPKa(i, k))),
@@ -70,17 +90,35 @@ export function budgetSensitivities(rows: MixtureRow[], volumeL: number, tempera
   };
 }
 
-/** Under sit: every sensitivity a central difference of full solves, each started from the solution's own ln h. */
-function resolvedSensitivities(eq: Equilibrium, rows: MixtureRow[], volumeL: number, temperatureC: number, model: ActivityModel,
-  allConcentrations: boolean, molesPerUnit: number[]): Omit<BudgetSensitivities, 'concentrationRows'> {
-  const oneSided: { input: string; reason: string }[] = [];
-  const pHAt = (r: MixtureRow[], v: number, t: number, shift?: (p: Problem) => void): number => {
-    const p = prepareProblem(buildContents(r, v), t, model);
+/** A full solve of the mixture as read with one input moved by d, started from the solution's own ln h. */
+function movedSolve(eq: Equilibrium, contents: Contents, temperatureC: number, model: ActivityModel, concentrationRows: boolean[],
+  perUnit: number[]): (input: BudgetInput, d: number) => number {
+  const volumeL = contents.volumeL, baseMoles = contents.rows.map((r) => r.moles);
+  const baseContents = contentsWithMoles(contents, baseMoles, volumeL);
+  const pHOf = (c: Contents, t: number, shift?: (p: Problem) => void): number => {
+    const p = prepareProblem(c, t, model);
     shift?.(p);
     return solve(p, eq.lnH).pH;
   };
+  return (input, d) => {
+    if (input === 'volume') {
+      // rows given as concentrations of the final solution keep their concentration, the others dilute
+      return pHOf(contentsWithMoles(contents, baseMoles.map((m, k) => (concentrationRows[k] ? (m * (volumeL + d)) / volumeL : m)), volumeL + d), temperatureC);
+    }
+    if (input === 'temperature') return pHOf(baseContents, temperatureC + d);
+    if (input === 'pKw') return pHOf(baseContents, temperatureC, (q) => shiftConstants(q, [], d));
+    if ('row' in input) return pHOf(contentsWithMoles(contents, baseMoles.map((m, k) => (k === input.row ? m + d * perUnit[k] : m)), volumeL), temperatureC);
+    return pHOf(baseContents, temperatureC, (q) => shiftConstants(q, q.systems.map((s, j) => (j === input.system ? s.system.steps.map((_, m) => (m === input.step ? d : 0)) : [])), 0));
+  };
+}
+
+/** Under sit: every sensitivity a central difference of full solves. */
+function resolvedSensitivities(eq: Equilibrium, pHWith: (input: BudgetInput, d: number) => number, perUnit: number[], contents: Contents,
+  concentrationRows: boolean[]): Omit<BudgetSensitivities, 'concentrationRows' | 'pHWith'> {
+  const oneSided: { input: BudgetInput; reason: string }[] = [];
+  const volumeL = contents.volumeL;
   // a side outside the data's range (a temperature at the edge of a system's range, say) leaves a one-sided difference
-  const slope = (input: string, at: (d: number) => number, h: number): number => {
+  const slope = (input: BudgetInput, at: (d: number) => number, h: number): number => {
     const side = (d: number): number | undefined => {
       try { return at(d); } catch (e) { if (e instanceof ProticError && e.failure.code === 'out_of_range') return undefined; throw e; }
     };
@@ -91,28 +129,49 @@ function resolvedSensitivities(eq: Equilibrium, rows: MixtureRow[], volumeL: num
     if (down !== undefined) return (eq.pH - down) / h;
     return at(h); // both sides refused: let the refusal through
   };
-  const withAmount = (r: number, amount: number): number => pHAt(rows.map((x, k) => (k === r ? { ...x, amount } : x)), volumeL, temperatureC);
-  const perAmount = rows.map((row, r) => {
-    const input = `amount: ${row.reagent}`;
-    if (row.amount > 0) return slope(input, (d) => withAmount(r, row.amount + d), row.amount * RELATIVE_STEP);
-    if (!(molesPerUnit[r] > 0)) return 0; // water, or a row that releases nothing
-    // at 0 a step back would be a negative amount: forward, Richardson-extrapolated ((4 f(h) − f(2h) − 3 f(0)) / 2h, error
-    // of order h²), with the step the amount that moves the pH by about 1e-4 (β·1e-4 mol/L of base equivalent)
-    oneSided.push({ input, reason: 'at amount 0, forward (a step back would be a negative amount)' });
-    const h = (RELATIVE_STEP * Math.max(bufferCapacity(eq), 1e-9) * volumeL) / molesPerUnit[r];
-    return (4 * withAmount(r, h) - withAmount(r, 2 * h) - 3 * eq.pH) / (2 * h);
+  // the pH can turn on a scale far below the amount (near an equivalence point): a step that moves it by about
+  // PH_STEP as β·step of base would, and never more than RELATIVE_STEP of the amount
+  const beta = bufferCapacity(eq);
+  const betaStepMol = PH_STEP * (Number.isFinite(beta) && beta > 0 ? beta : 1e-9) * volumeL;
+  const perAmount = contents.rows.map((row, r) => {
+    if (!(perUnit[r] > 0)) return 0; // water, or a row that releases nothing
+    const amount = row.moles / perUnit[r];
+    const h = Math.min(betaStepMol / perUnit[r], amount > 0 ? amount * RELATIVE_STEP : Infinity);
+    if (amount > 0) return slope({ row: r }, (d) => pHWith({ row: r }, d), h);
+    // at 0 a step back would be a negative amount: forward, Richardson-extrapolated ((4 f(h) − f(2h) − 3 f(0)) / 2h, error of order h²)
+    oneSided.push({ input: { row: r }, reason: 'at amount 0, forward (a step back would be a negative amount)' });
+    return (4 * pHWith({ row: r }, h) - pHWith({ row: r }, 2 * h) - 3 * eq.pH) / (2 * h);
   });
   const p = eq.problem;
   return {
     eq,
     perAmount,
     // rows given as concentrations do not depend on the volume: exactly 0, not the rounding of two solves
-    perLitre: allConcentrations ? 0 : slope('final volume', (d) => pHAt(rows, volumeL + d, temperatureC), volumeL * RELATIVE_STEP),
-    perKelvin: slope('temperature', (d) => pHAt(rows, volumeL, temperatureC + d), TEMPERATURE_STEP_C),
-    perPKa: p.systems.map((s, i) => s.system.steps.map((_, k) => slope(`pKa ${s.system.name} ${k + 1}`,
-      (d) => pHAt(rows, volumeL, temperatureC, (q) => shiftConstants(q, q.systems.map((_, j) => (j === i ? s.system.steps.map((__, m) => (m === k ? d : 0)) : [])), 0)), CONSTANT_STEP))),
-    perPKw: slope('pKw', (d) => pHAt(rows, volumeL, temperatureC, (q) => shiftConstants(q, [], d)), CONSTANT_STEP),
+    perLitre: concentrationRows.every(Boolean) ? 0 : slope('volume', (d) => pHWith('volume', d), volumeL * RELATIVE_STEP),
+    perKelvin: slope('temperature', (d) => pHWith('temperature', d), TEMPERATURE_STEP_C),
+    perPKa: p.systems.map((s, i) => s.system.steps.map((_, k) => slope({ system: i, step: k }, (d) => pHWith({ system: i, step: k }, d), CONSTANT_STEP))),
+    perPKw: slope('pKw', (d) => pHWith('pKw', d), CONSTANT_STEP),
     method: 'sensitivities: central differences of full sit solves (the ε terms move with the composition)',
     oneSided,
   };
+}
+
+/** Above this relative departure from first order over an input's ± limit, the budget says that its line is not linear. */
+export const LINEARITY_LIMIT = 0.1;
+
+/**
+ * How far the pH's actual moves over ± `half` of an input depart from the first-order move `sensitivity`·half: the
+ * larger of |Δ(+half)/(s·half) − 1| and |Δ(−half)/(−s·half) − 1|, each from a full solve (a side that would be a negative
+ * amount, below `lowest`, or that the data refuse is left out); undefined when no side can be solved or the first-order
+ * move is below 1e-4 pH (its line cannot matter).
+ * @example linearityDeparture(sens, { row: 1 }, 0.05, sens.perAmount[1], 0) // 0.002: linear over ± 0.05 of row 2's unit
+ */
+export function linearityDeparture(sens: BudgetSensitivities, input: BudgetInput, half: number, sensitivity: number, lowest = -Infinity): number | undefined {
+  const linear = sensitivity * half;
+  if (!(Math.abs(linear) >= 1e-4)) return undefined;
+  const side = (d: number): number | undefined => {
+    try { return (sens.pHWith(input, d) - sens.eq.pH) / (d > 0 ? linear : -linear); } catch (e) { if (e instanceof ProticError) return undefined; throw e; }
+  };
+  const ratios = [side(half), lowest <= -half ? side(-half) : undefined].filter((x): x is number => x !== undefined && Number.isFinite(x));
+  return ratios.length === 0 ? undefined : Math.max(...ratios.map((x) => Math.abs(x - 1)));
 }

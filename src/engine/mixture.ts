@@ -286,6 +286,33 @@ export function contentsFromParsed(parsed: ParsedRow[], volumeL: number | undefi
   return contents;
 }
 
+/**
+ * The same contents with each row's moles replaced (row r → moles[r]) and the final volume set: the maps rebuilt from
+ * the rows' reagents as buildContents builds them, without its volume and mass checks, for differences of a mixture
+ * already read (a step there may cross a check's edge, as a stock that fills the volume does).
+ * @example contentsWithMoles(c, c.rows.map((r) => r.moles * 1.0001), c.volumeL) // every row 0.01 % more
+ */
+export function contentsWithMoles(contents: Contents, moles: readonly number[], volumeL: number): Contents {
+  const out: Contents = { systemMoles: new Map(), ionMoles: new Map(), volumeL, rows: [], notes: contents.notes };
+  // every key of the original, in its order (the problem's systems keep their indices; a system at zero stays)
+  for (const k of contents.systemMoles.keys()) out.systemMoles.set(k, 0);
+  for (const k of contents.ionMoles.keys()) out.ionMoles.set(k, 0);
+  contents.rows.forEach((row, r) => {
+    addReagent(out, row.reagent, moles[r]);
+    out.rows.push({ ...row, moles: moles[r] });
+  });
+  return out;
+}
+
+/**
+ * Moles of reagent a row holds per unit of its amount (a row's moles are proportional to its amount), from the
+ * row's reagent and unit alone: no volume or mass check, so a row at 0 has its rate too.
+ * @example molesPerUnit({ reagent: 'NaCl', amount: 0, unit: 'g', row: 1 }, 1) // 1/58.44 mol per g
+ */
+export function molesPerUnit(row: MixtureRow, volumeL: number | undefined): number {
+  return rowMoles(parseReagentSpec(row.reagent, 'reagents', row.row), 1, parseUnit(row.unit, 'units', row.row), volumeL, row).moles;
+}
+
 export function cloneContents(contents: Contents): Contents {
   return { systemMoles: new Map(contents.systemMoles), ionMoles: new Map(contents.ionMoles), volumeL: contents.volumeL, rows: [...contents.rows], notes: contents.notes };
 }

@@ -1,4 +1,5 @@
-import { budgetSensitivities, fail, parseModel } from '../engine';
+import { LINEARITY_LIMIT, budgetSensitivities, fail, linearityDeparture, parseModel, sameInput } from '../engine';
+import type { BudgetInput } from '../engine';
 import { TEMPERATURE_RULE, VOLUME_RULE, isBlank, mixtureRows, optionalNumber, requiredNumber, toMatrix } from './args';
 import type { Cell } from './args';
 import type { CellScalar } from './impl';
@@ -30,7 +31,7 @@ export interface BudgetLine { input: string; value: number; unit: string; limit:
 
 /** The budget lines and the combined result, for the cell function, the tests and the bench. */
 export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, volume: Cell, temperature?: Cell, model?: Cell,
-  amountTolerances?: Cell, volumeTolerance?: Cell, temperatureTolerance?: Cell): { pH: number; lines: BudgetLine[]; combined: number; method: string } {
+  amountTolerances?: Cell, volumeTolerance?: Cell, temperatureTolerance?: Cell): { pH: number; lines: BudgetLine[]; combined: number; method: string; nonlinear: string[] } {
   const rows = mixtureRows(reagents, amounts, units);
   const volumeL = requiredNumber(volume, 'volume', VOLUME_RULE);
   const temperatureC = optionalNumber(temperature, 'temperature', 25, TEMPERATURE_RULE);
@@ -40,17 +41,20 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   const volTol = optionalNumber(volumeTolerance, 'volumeTolerance', 0, { min: 0, max: 1e6, expected: 'a ± tolerance of the volume, L' });
   const tTol = optionalNumber(temperatureTolerance, 'temperatureTolerance', 0, { min: 0, max: 50, expected: 'a ± tolerance of the temperature, °C' });
   const sens = budgetSensitivities(rows, volumeL, temperatureC, activityModel);
-  const sided = (input: string, note: string): string => {
-    const one = sens.oneSided.find((x) => x.input === input);
+  const sided = (input: BudgetInput, note: string): string => {
+    const one = sens.oneSided.find((x) => sameInput(x.input, input));
     return one ? [note, `a one-sided difference: ${one.reason}`].filter(Boolean).join('; ') : note;
   };
   const lines: BudgetLine[] = [];
+  const keys: BudgetInput[] = [];
   rows.forEach((r, i) => {
     const a = tol[r.row - 1];
-    lines.push({ input: `amount: ${r.reagent}`, value: r.amount, unit: r.unit, limit: a, distribution: 'rectangular', u: a / RECT, sensitivity: sens.perAmount[i], note: sided(`amount: ${r.reagent}`, a === 0 ? 'no tolerance given' : '') });
+    keys.push({ row: i });
+    lines.push({ input: `amount: ${r.reagent}`, value: r.amount, unit: r.unit, limit: a, distribution: 'rectangular', u: a / RECT, sensitivity: sens.perAmount[i], note: sided({ row: i }, a === 0 ? 'no tolerance given' : '') });
   });
+  keys.push('volume', 'temperature');
   lines.push({ input: 'final volume', value: volumeL, unit: 'L', limit: volTol, distribution: 'rectangular', u: volTol / RECT, sensitivity: sens.perLitre,
-    note: sided('final volume', sens.concentrationRows.every(Boolean) ? 'rows given as concentrations do not depend on it' : '') });
+    note: sided('volume', sens.concentrationRows.every(Boolean) ? 'rows given as concentrations do not depend on it' : '') });
   lines.push({ input: 'temperature', value: temperatureC, unit: '°C', limit: tTol, distribution: 'rectangular', u: tTol / RECT, sensitivity: sens.perKelvin,
     note: sided('temperature', 'through each pKa (its ΔrH°, ΔrCp°), pKw, the Debye–Hückel A and the kg of water per litre (the solution density)') });
   const p = sens.eq.problem;
@@ -58,17 +62,30 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
     if (p.totalsM[i] <= 0) return;
     s.system.steps.forEach((step, k) => {
       const stated = step.provenance.pKa.pKaPlusMinus;
-      const input = `pKa ${s.system.name} ${k + 1}`, sensitivity = sens.perPKa[i][k];
+      const input = `pKa ${s.system.name} ${k + 1}`, sensitivity = sens.perPKa[i][k], key = { system: i, step: k };
+      keys.push(key);
       lines.push(stated !== undefined
-        ? { input, value: step.pKa, unit: '', limit: stated, distribution: 'normal (stated ± as u)', u: stated, sensitivity, note: sided(input, `stated in ${step.provenance.pKa.source}`) }
+        ? { input, value: step.pKa, unit: '', limit: stated, distribution: 'normal (stated ± as u)', u: stated, sensitivity, note: sided(key, `stated in ${step.provenance.pKa.source}`) }
         : { input, value: step.pKa, unit: '', limit: ASSUMED_PKA_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKA_HALF_WIDTH / RECT, sensitivity,
-          note: sided(input, `no uncertainty from the source (${step.provenance.pKa.level}): ±${ASSUMED_PKA_HALF_WIDTH} assumed`) });
+          note: sided(key, `no uncertainty from the source (${step.provenance.pKa.level}): ±${ASSUMED_PKA_HALF_WIDTH} assumed`) });
     });
   });
+  keys.push('pKw');
   lines.push({ input: 'pKw', value: p.lnKw / -Math.LN10, unit: '', limit: ASSUMED_PKW_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKW_HALF_WIDTH / RECT, sensitivity: sens.perPKw,
     note: sided('pKw', `no uncertainty read from IAPWS R11-07: ±${ASSUMED_PKW_HALF_WIDTH} assumed`) });
+  // the first-order budget holds only where the pH is close to linear over each ± limit (JCGM 101 is the check where not):
+  // each line with a limit is solved at its ends (a normal u: ± 2u), and one that departs by more than 10 % says so
+  const nonlinear: string[] = [];
+  lines.forEach((l, n) => {
+    if (!(l.limit > 0)) return;
+    const half = l.distribution.startsWith('normal') ? 2 * l.u : l.limit;
+    const departure = linearityDeparture(sens, keys[n], half, l.sensitivity, typeof keys[n] === 'object' && 'row' in keys[n] ? -l.value : -Infinity);
+    if (departure === undefined || departure <= LINEARITY_LIMIT) return;
+    nonlinear.push(l.input);
+    l.note = [l.note, `not linear over ± ${Number(half.toPrecision(3))}: the pH's move there departs from first order by ${Math.round(departure * 100)} %, so this line's contribution is not reliable (check by a Monte Carlo, JCGM 101, or narrow the tolerance)`].filter(Boolean).join('; ');
+  });
   const combined = Math.sqrt(lines.reduce((sum, l) => sum + (l.sensitivity * l.u) ** 2, 0));
-  return { pH: sens.eq.pH, lines, combined, method: sens.method };
+  return { pH: sens.eq.pH, lines, combined, method: sens.method, nonlinear };
 }
 
 /** The budget as a spill: pH, one line per input, then u(pH) and U (k = 2). */
@@ -78,7 +95,8 @@ export function uncertainty(reagents: Cell, amounts: Cell, units: Cell, volume: 
   const fin = (v: number): number => { if (!Number.isFinite(v)) fail({ code: 'no_convergence', argument: 'reagents', received: String(v), expected: 'a finite sensitivity; please report this input' }); return v; };
   const table: CellScalar[][] = [UNCERTAINTY_HEADER, ['pH', fin(b.pH), '', '', '', '', '', '', 'the value the budget is for']];
   for (const l of b.lines) table.push([l.input, l.value, l.unit, l.limit, l.distribution, fin(l.u), fin(l.sensitivity), fin(Math.abs(l.sensitivity) * l.u), l.note]);
-  table.push(['combined standard uncertainty u(pH)', fin(b.combined), '', '', '', '', '', '', `GUM (JCGM 100:2008), first-order propagation, inputs uncorrelated; ${b.method}`]);
+  const caution = b.nonlinear.length > 0 ? `; not reliable: first order does not hold over the ± limit of ${b.nonlinear.join(', ')}` : '';
+  table.push(['combined standard uncertainty u(pH)', fin(b.combined), '', '', '', '', '', '', `GUM (JCGM 100:2008), first-order propagation, inputs uncorrelated; ${b.method}${caution}`]);
   table.push(['expanded uncertainty U (k = 2)', fin(2 * b.combined), '', '', '', '', '', '', 'about 95 % coverage for a near-normal output']);
   return table;
 }
