@@ -74,15 +74,17 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   lines.push({ input: 'pKw', value: p.lnKw / -Math.LN10, unit: '', limit: ASSUMED_PKW_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKW_HALF_WIDTH / RECT, sensitivity: sens.perPKw,
     note: sided('pKw', `no uncertainty read from IAPWS R11-07: ±${ASSUMED_PKW_HALF_WIDTH} assumed`) });
   // the first-order budget holds only where the pH is close to linear over each ± limit (JCGM 101 is the check where not):
-  // each line with a limit is solved at its ends (a normal u: ± 2u), and one that departs by more than 10 % says so
+  // each amount and the volume are solved at the ends of their limits, and a line that departs by more than 10 % says so.
+  // The pKa (± 0.02), pKw (± 0.01) and temperature lines are not: the pH's slope in them follows the speciation, which
+  // moves by a few hundredths of a pH unit over such limits, so they stay within a few % of first order.
   const nonlinear: string[] = [];
   lines.forEach((l, n) => {
-    if (!(l.limit > 0)) return;
-    const half = l.distribution.startsWith('normal') ? 2 * l.u : l.limit;
-    const departure = linearityDeparture(sens, keys[n], half, l.sensitivity, typeof keys[n] === 'object' && 'row' in keys[n] ? -l.value : -Infinity);
+    const key = keys[n];
+    if (!(l.limit > 0) || !(key === 'volume' || (typeof key === 'object' && 'row' in key))) return;
+    const departure = linearityDeparture(sens, key, l.limit, l.sensitivity, key === 'volume' ? -Infinity : -l.value);
     if (departure === undefined || departure <= LINEARITY_LIMIT) return;
     nonlinear.push(l.input);
-    l.note = [l.note, `not linear over ± ${Number(half.toPrecision(3))}: the pH's move there departs from first order by ${Math.round(departure * 100)} %, so this line's contribution is not reliable (check by a Monte Carlo, JCGM 101, or narrow the tolerance)`].filter(Boolean).join('; ');
+    l.note = [l.note, `not linear over ± ${Number(l.limit.toPrecision(3))}: the pH's move there departs from first order by ${Math.round(departure * 100)} %, so this line's contribution is not reliable (check by a Monte Carlo, JCGM 101, or narrow the tolerance)`].filter(Boolean).join('; ');
   });
   const combined = Math.sqrt(lines.reduce((sum, l) => sum + (l.sensitivity * l.u) ** 2, 0));
   return { pH: sens.eq.pH, lines, combined, method: sens.method, nonlinear };
