@@ -143,6 +143,42 @@ describe('UNCERTAINTY under sit', () => {
     expect(estimate).toBeGreaterThan(100); // pH per mL: the equivalence point's steep slope
   });
 
+  // a reference slope by central differences of the full solve, the step shrunk until two successive estimates agree
+  const converged = (at: (d: number) => number, h0: number): number => {
+    let h = h0, previous = NaN, estimate = NaN;
+    for (let k = 0; k < 40 && !(Math.abs(estimate / previous - 1) < 1e-7); k++) { previous = estimate; estimate = (at(h) - at(-h)) / (2 * h); h /= 3; }
+    return estimate;
+  };
+  const pHOf = (reagents: string[], amounts: number[], units: string[], volumeL: number): number =>
+    solve(prepareProblem(buildContents(reagents.map((reagent, i) => ({ reagent, amount: amounts[i], unit: units[i], row: i + 1 })), volumeL), 25, 'sit')).pH;
+
+  test.each([[0], [5.55e-17], [1e-12]])('an amount of %p (0.1 + 0.2 − 0.3 in a cell is 5.55e-17) has the slope of the row at 0, not a silent 0', (tiny) => {
+    const reagents = ['Tris', '1 M HCl', '0.01 M NaOH'], units = ['g', 'mL', 'mL'];
+    const b = uncertaintyBudget(reagents.map((r) => [r]), [[1.2114], [10], [tiny]], units.map((u) => [u]), 1, 25, 'sit', null, 0, 0);
+    const h = 1e-3; // mL; Richardson forward difference of the full solve from 0
+    const at = (d: number) => pHOf(reagents, [1.2114, 10, d], units, 1);
+    expect(Math.abs(b.lines[2].sensitivity / ((4 * at(h / 8) - at(h / 4) - 3 * at(0)) / (h / 4)) - 1)).toBeLessThan(1e-5);
+  });
+
+  test.each([
+    [['1 M HCl', 'NaOH'], [10, 99.99], ['mL', 'mM'], 0.1],
+    [['1 M HCl', 'NaOH'], [10, 100], ['mL', 'mM'], 0.1],
+    [['NaOH', 'HCl'], [0.39997, 10], ['g', 'mM'], 1],
+  ])('the volume near an equivalence point (%j %j %j in %p L): the step follows the pH\'s own scale', (reagents, amounts, units, volumeL) => {
+    const b = uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), volumeL, 25, 'sit', null, 0, 0);
+    const reference = converged((d) => pHOf(reagents, amounts, units, volumeL + d), volumeL * 1e-3);
+    expect(Math.abs(b.lines.find((l) => l.input === 'final volume')!.sensitivity / reference - 1)).toBeLessThan(1e-5);
+  });
+
+  test('rows that barely act in an unbuffered solution (KCl, sucrose beside NaCl in water): steps above the solves\' noise', () => {
+    const reagents = ['NaCl', 'sucrose', 'KCl', 'water'], amounts = [0.5844, 50, 0.1, 1000], units = ['g', 'g', 'g', 'mL'];
+    const b = uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), 1, 25, 'sit', null, 0, 0);
+    [0, 1, 2].forEach((i) => {
+      const reference = converged((d) => pHOf(reagents, amounts.map((x, k) => (k === i ? x + d : x)), units, 1), amounts[i] * 1e-2);
+      expect([i, Math.abs(b.lines[i].sensitivity / reference - 1) < 1e-4]).toEqual([i, true]);
+    });
+  });
+
   test('two rows of one reagent keep their own notes (the one at 0 is the forward one)', () => {
     const b = uncertaintyBudget([['NaCl'], ['HCl'], ['NaCl']], [[5.8], [10], [0]], [['g'], ['mM'], ['g']], 1, 25, 'sit', null, 0, 0);
     expect(b.lines[0].note).not.toContain('one-sided');

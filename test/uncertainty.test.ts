@@ -78,6 +78,25 @@ describe('UNCERTAINTY: where first order does not hold over a ± limit, the line
   });
 });
 
+describe('UNCERTAINTY: first-order checks that cannot be made are said', () => {
+  test('a ± limit larger than the amount, and ends the data refuse (HCl 10 mM ± 50,000 mM)', () => {
+    const b = uncertaintyBudget([['HCl']], [[10]], [['mM']], 1, 25, 'davies', [[50000]], 0, 0);
+    expect(b.lines[0].note).toContain('larger than the amount');
+    expect(b.lines[0].note).toContain('could not be checked');
+    expect(b.nonlinear).toEqual(['amount: HCl (row 1)']);
+  });
+});
+
+describe('UNCERTAINTY: a row at amount 0, its density share in a small volume', () => {
+  // one kg of sucrose against 1 mL: the density formula's step is 1 mmol/L of the row, not a fraction of one unit
+  test.each([[1e-3], [1e-4]])('sucrose 0 kg beside 1 mM HCl in %p L', (volumeL) => {
+    const b = uncertaintyBudget([['sucrose'], ['HCl']], [[0], [1]], [['kg'], ['mM']], volumeL, 25, 'davies', null, 0, 0);
+    const at = (d: number) => solve(prepareProblem(buildContents([{ reagent: 'sucrose', amount: d, unit: 'kg', row: 1 }, { reagent: 'HCl', amount: 1, unit: 'mM', row: 2 }], volumeL), 25, 'davies')).pH;
+    const h = 1e-9 * volumeL * 1e3; // kg: Richardson forward difference of the full solve
+    expect(Math.abs(b.lines[0].sensitivity / ((4 * at(h) - at(2 * h) - 3 * at(0)) / (2 * h)) - 1)).toBeLessThan(1e-5);
+  });
+});
+
 describe('UNCERTAINTY: a row at amount 0', () => {
   // a batch record's pH-adjustment row at 0 ± its tolerance: the slope at 0 is the reagent's own, not a silent 0
   const solvePH = (amounts: number[]): number => solve(prepareProblem(buildContents(['KH2PO4', 'Na2HPO4', 'NaCl'].map((reagent, i) => ({ reagent, amount: amounts[i], unit: 'g', row: i + 1 })), 1), 25, 'davies')).pH;

@@ -47,8 +47,10 @@ export interface BudgetSensitivities {
 
 /** Relative step of an amount or the volume for the central differences. */
 const RELATIVE_STEP = 1e-4;
-/** pH move aimed at by an amount's step: its β-scaled size (truncation of order its square, solve noise 1e-13 below it). */
+/** pH move aimed at by an amount's or the volume's step (truncation of order its square, solve noise 1e-13 far below it). */
 const PH_STEP = 1e-4;
+/** Below this pH move over a step, the solves' own 1e-13 would show in the slope (1e-5 of it): the step grows. */
+const NOISE_MOVE = 1e-8;
 /** Temperature step, °C. */
 const TEMPERATURE_STEP_C = 0.01;
 /** pKa and pKw step. */
@@ -117,40 +119,58 @@ function resolvedSensitivities(eq: Equilibrium, pHWith: (input: BudgetInput, d: 
   concentrationRows: boolean[]): Omit<BudgetSensitivities, 'concentrationRows' | 'pHWith'> {
   const oneSided: { input: BudgetInput; reason: string }[] = [];
   const volumeL = contents.volumeL;
+  const sided = (input: BudgetInput, reason: string): void => {
+    if (!oneSided.some((x) => sameInput(x.input, input))) oneSided.push({ input, reason });
+  };
   // a side outside the data's range (a temperature at the edge of a system's range, say) leaves a one-sided difference
-  const slope = (input: BudgetInput, at: (d: number) => number, h: number): number => {
+  const central = (input: BudgetInput, at: (d: number) => number) => (h: number): number => {
     const side = (d: number): number | undefined => {
       try { return at(d); } catch (e) { if (e instanceof ProticError && e.failure.code === 'out_of_range') return undefined; throw e; }
     };
     const up = side(h), down = side(-h);
     if (up !== undefined && down !== undefined) return (up - down) / (2 * h);
-    oneSided.push({ input, reason: 'the other side is outside the data\'s range' });
+    sided(input, 'the other side is outside the data\'s range');
     if (up !== undefined) return (up - eq.pH) / h;
     if (down !== undefined) return (eq.pH - down) / h;
     return at(h); // both sides refused: let the refusal through
   };
-  // the pH can turn on a scale far below the amount (near an equivalence point): a step that moves it by about
-  // PH_STEP as β·step of base would, and never more than RELATIVE_STEP of the amount
+  // forward, Richardson-extrapolated ((4 f(h) − f(2h) − 3 f(0)) / 2h, error of order h²)
+  const forward = (at: (d: number) => number) => (h: number): number => (4 * at(h) - at(2 * h) - 3 * eq.pH) / (2 * h);
+  // the step fitted to the pH's own scale: where the pH moves by more than 2·PH_STEP over it (a steep region, an
+  // equivalence point) the step shrinks to move it by PH_STEP; where by less than NOISE_MOVE (an input that barely acts,
+  // where the solves' 1e-13 would show) it grows to move it by 10·NOISE_MOVE, within maxStep; at most 6 times
+  const fitted = (difference: (h: number) => number, h0: number, maxStep: number): number => {
+    let h = Math.min(h0, maxStep), slope = difference(h);
+    for (let k = 0; k < 6; k++) {
+      const move = Math.abs(slope * h);
+      if (slope === 0 || !Number.isFinite(slope)) break;
+      const next = move > 2 * PH_STEP ? PH_STEP / Math.abs(slope) : move < NOISE_MOVE ? Math.min((10 * NOISE_MOVE) / Math.abs(slope), maxStep) : h;
+      if (!(next < h || next > h)) break;
+      h = next;
+      slope = difference(h);
+    }
+    return slope;
+  };
+  // an amount's first step moves the pH by about PH_STEP as β·step of base would
   const beta = bufferCapacity(eq);
   const betaStepMol = PH_STEP * (Number.isFinite(beta) && beta > 0 ? beta : 1e-9) * volumeL;
   const perAmount = contents.rows.map((row, r) => {
     if (!(perUnit[r] > 0)) return 0; // water, or a row that releases nothing
-    const amount = row.moles / perUnit[r];
-    const h = Math.min(betaStepMol / perUnit[r], amount > 0 ? amount * RELATIVE_STEP : Infinity);
-    if (amount > 0) return slope({ row: r }, (d) => pHWith({ row: r }, d), h);
-    // at 0 a step back would be a negative amount: forward, Richardson-extrapolated ((4 f(h) − f(2h) − 3 f(0)) / 2h, error of order h²)
-    oneSided.push({ input: { row: r }, reason: 'at amount 0, forward (a step back would be a negative amount)' });
-    return (4 * pHWith({ row: r }, h) - pHWith({ row: r }, 2 * h) - 3 * eq.pH) / (2 * h);
+    const amount = row.moles / perUnit[r], hBeta = betaStepMol / perUnit[r], at = (d: number) => pHWith({ row: r }, d);
+    if (amount >= hBeta) return fitted(central({ row: r }, at), Math.min(hBeta, amount * RELATIVE_STEP), amount * 1e-2);
+    // at 0, or below the step that resolves it (0.1 + 0.2 − 0.3 in a cell): a step back would be a negative amount
+    sided({ row: r }, amount > 0 ? 'the amount is below the step that resolves it, forward' : 'at amount 0, forward (a step back would be a negative amount)');
+    return fitted(forward(at), hBeta, Infinity);
   });
   const p = eq.problem;
   return {
     eq,
     perAmount,
     // rows given as concentrations do not depend on the volume: exactly 0, not the rounding of two solves
-    perLitre: concentrationRows.every(Boolean) ? 0 : slope('volume', (d) => pHWith('volume', d), volumeL * RELATIVE_STEP),
-    perKelvin: slope('temperature', (d) => pHWith('temperature', d), TEMPERATURE_STEP_C),
-    perPKa: p.systems.map((s, i) => s.system.steps.map((_, k) => slope({ system: i, step: k }, (d) => pHWith({ system: i, step: k }, d), CONSTANT_STEP))),
-    perPKw: slope('pKw', (d) => pHWith('pKw', d), CONSTANT_STEP),
+    perLitre: concentrationRows.every(Boolean) ? 0 : fitted(central('volume', (d) => pHWith('volume', d)), volumeL * RELATIVE_STEP, volumeL * 1e-2),
+    perKelvin: central('temperature', (d) => pHWith('temperature', d))(TEMPERATURE_STEP_C),
+    perPKa: p.systems.map((s, i) => s.system.steps.map((_, k) => central({ system: i, step: k }, (d) => pHWith({ system: i, step: k }, d))(CONSTANT_STEP))),
+    perPKw: central('pKw', (d) => pHWith('pKw', d))(CONSTANT_STEP),
     method: 'sensitivities: central differences of full sit solves (the ε terms move with the composition)',
     oneSided,
   };

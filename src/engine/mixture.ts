@@ -299,7 +299,8 @@ export function contentsWithMoles(contents: Contents, moles: readonly number[], 
   for (const k of contents.ionMoles.keys()) out.ionMoles.set(k, 0);
   contents.rows.forEach((row, r) => {
     addReagent(out, row.reagent, moles[r]);
-    out.rows.push({ ...row, moles: moles[r] });
+    // a dispensed row's volume follows its moles (a row at 0 dispenses none)
+    out.rows.push({ ...row, moles: moles[r], volumeL: row.moles > 0 ? (row.volumeL * moles[r]) / row.moles : 0 });
   });
   return out;
 }

@@ -157,10 +157,10 @@ function lnWaterMoved(p: Problem, contents: Contents, deltaM: number[]): number 
  * d ln w per unit step of the composition along deltaPerUnit (mol/L of each row), by a central difference of the density
  * formula; `forward`: a forward difference, for a row at amount 0 (a step back would be a negative amount).
  */
-function lnWaterSlope(p: Problem, contents: Contents, deltaPerUnit: number[], unit: number, forward = false): number {
-  const h = 1e-4 * unit;
-  const back = forward ? lnWaterMoved(p, contents, deltaPerUnit.map(() => 0)) : lnWaterMoved(p, contents, deltaPerUnit.map((d) => -d * h));
-  return (lnWaterMoved(p, contents, deltaPerUnit.map((d) => d * h)) - back) / (forward ? h : 2 * h);
+function lnWaterSlope(p: Problem, contents: Contents, deltaPerUnit: number[], h: number, forward = false): number {
+  const at = (k: number): number => lnWaterMoved(p, contents, deltaPerUnit.map((d) => d * k * h));
+  // forward: Richardson-extrapolated, (4 f(h) − f(2h) − 3 f(0)) / 2h, error of order h²
+  return forward ? (4 * at(1) - at(2) - 3 * at(0)) / (2 * h) : (at(1) - at(-1)) / (2 * h);
 }
 
 /**
@@ -175,8 +175,8 @@ export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, 
     const perUnit = molesPerUnit[r];
     if (!(perUnit > 0)) return 0; // water, or a row that releases nothing
     const along = contents.rows.map((_, k) => (k === r ? perUnit / contents.volumeL : 0));
-    // the density formula's slope by a difference of ± 1e-4 of the row's amount, or of + 1e-4 of one unit at amount 0
-    const viaDensity = perLnWater * (row.moles > 0 ? lnWaterSlope(p, contents, along, row.moles / perUnit) : lnWaterSlope(p, contents, along, 1, true));
+    // the density formula's slope by a difference of ± 1e-4 of the row's amount, or at amount 0 forward by 1 mmol/L of it
+    const viaDensity = perLnWater * (row.moles > 0 ? lnWaterSlope(p, contents, along, (1e-4 * row.moles) / perUnit) : lnWaterSlope(p, contents, along, (1e-3 * contents.volumeL) / perUnit, true));
     let perMole = 0; // dpH per mole of reagent formula units, in the final volume
     for (const s of row.reagent.systems) {
       const i = p.systems.findIndex((x) => x.system.id === s.systemId);
@@ -194,7 +194,7 @@ export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, 
 export function volumeSensitivity(sens: PHSensitivity, contents: Contents, concentrationRows: boolean[]): number {
   const p = sens.eq.problem;
   const along = contents.rows.map((row, r) => (concentrationRows[r] ? 0 : -row.moles / contents.volumeL ** 2));
-  let total = sens.perLnWaterDensity() * lnWaterSlope(p, contents, along, contents.volumeL);
+  let total = sens.perLnWaterDensity() * lnWaterSlope(p, contents, along, 1e-4 * contents.volumeL);
   contents.rows.forEach((row, r) => {
     if (concentrationRows[r]) return;
     for (const s of row.reagent.systems) {

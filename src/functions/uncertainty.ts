@@ -78,13 +78,22 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   // The pKa (± 0.02), pKw (± 0.01) and temperature lines are not: the pH's slope in them follows the speciation, which
   // moves by a few hundredths of a pH unit over such limits, so they stay within a few % of first order.
   const nonlinear: string[] = [];
+  const addNote = (l: BudgetLine, note: string): void => { l.note = [l.note, note].filter(Boolean).join('; '); };
   lines.forEach((l, n) => {
     const key = keys[n];
     if (!(l.limit > 0) || !(key === 'volume' || (typeof key === 'object' && 'row' in key))) return;
-    const departure = linearityDeparture(sens, key, l.limit, l.sensitivity, key === 'volume' ? -Infinity : -l.value);
-    if (departure === undefined || departure <= LINEARITY_LIMIT) return;
-    nonlinear.push(l.input);
-    l.note = [l.note, `not linear over ± ${Number(l.limit.toPrecision(3))}: the pH's move there departs from first order by ${Math.round(departure * 100)} %, so this line's contribution is not reliable (check by a Monte Carlo, JCGM 101, or narrow the tolerance)`].filter(Boolean).join('; ');
+    const isRow = typeof key === 'object';
+    const name = isRow ? `${l.input} (row ${rows[key.row].row})` : l.input;
+    if (isRow && l.limit > l.value) addNote(l, 'the ± limit is larger than the amount: below 0 is no mixture, so only the upper end is checked');
+    const departure = linearityDeparture(sens, key, l.limit, l.sensitivity, isRow ? -l.value : -Infinity);
+    if (departure === undefined) {
+      // no end could be solved while the first-order move matters: say so rather than pass it as linear
+      if (Math.abs(l.sensitivity * l.limit) >= 1e-4) { nonlinear.push(name); addNote(l, 'first order could not be checked: the ends of the ± limit are refused'); }
+      return;
+    }
+    if (departure <= LINEARITY_LIMIT) return;
+    nonlinear.push(name);
+    addNote(l, `not linear over ± ${Number(l.limit.toPrecision(3))}: the pH's move there departs from first order by ${Math.round(departure * 100)} %, so this line's contribution is not reliable (check by a Monte Carlo, JCGM 101, or narrow the tolerance)`);
   });
   const combined = Math.sqrt(lines.reduce((sum, l) => sum + (l.sensitivity * l.u) ** 2, 0));
   return { pH: sens.eq.pH, lines, combined, method: sens.method, nonlinear };
@@ -97,7 +106,7 @@ export function uncertainty(reagents: Cell, amounts: Cell, units: Cell, volume: 
   const fin = (v: number): number => { if (!Number.isFinite(v)) fail({ code: 'no_convergence', argument: 'reagents', received: String(v), expected: 'a finite sensitivity; please report this input' }); return v; };
   const table: CellScalar[][] = [UNCERTAINTY_HEADER, ['pH', fin(b.pH), '', '', '', '', '', '', 'the value the budget is for']];
   for (const l of b.lines) table.push([l.input, l.value, l.unit, l.limit, l.distribution, fin(l.u), fin(l.sensitivity), fin(Math.abs(l.sensitivity) * l.u), l.note]);
-  const caution = b.nonlinear.length > 0 ? `; not reliable: first order does not hold over the ± limit of ${b.nonlinear.join(', ')}` : '';
+  const caution = b.nonlinear.length > 0 ? `; not reliable: first order does not hold, or could not be checked, over the ± limit of ${b.nonlinear.join(', ')}` : '';
   table.push(['combined standard uncertainty u(pH)', fin(b.combined), '', '', '', '', '', '', `GUM (JCGM 100:2008), first-order propagation, inputs uncorrelated; ${b.method}${caution}`]);
   table.push(['expanded uncertainty U (k = 2)', fin(2 * b.combined), '', '', '', '', '', '', 'about 95 % coverage for a near-normal output']);
   return table;
