@@ -179,6 +179,20 @@ describe('UNCERTAINTY under sit', () => {
     });
   });
 
+  test('a row at 0 that barely acts (sucrose beside a trace of NaCl in water) is differenced within the data, not refused', () => {
+    const reagents = ['water', 'NaCl', 'sucrose'], amounts = [1000, 0.000125, 0], units = ['mL', 'g', 'g'];
+    expect(Number.isFinite(pHOf(reagents, amounts, units, 1))).toBe(true); // PHMIX solves it
+    const b = uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), 1, 25, 'sit', [[0], [0.001], [0.5]], 0, 0);
+    expect(Math.abs(b.lines[2].sensitivity)).toBeLessThan(1e-6); // about −1e-10 pH/g
+  });
+
+  test('a salt at 0.01 g in nearly pure water: the step stays within the amount and the slope matches the full solve', () => {
+    const reagents = ['HCl', 'NaCl'], amounts = [1e-6, 0.01], units = ['mM', 'g'];
+    const b = uncertaintyBudget(reagents.map((r) => [r]), amounts.map((a) => [a]), units.map((u) => [u]), 1, 25, 'sit', null, 0, 0);
+    const reference = converged((d) => pHOf(reagents, [1e-6, 0.01 + d], units, 1), 1e-3);
+    expect(Math.abs(b.lines[1].sensitivity / reference - 1)).toBeLessThan(1e-3);
+  });
+
   test('two rows of one reagent keep their own notes (the one at 0 is the forward one)', () => {
     const b = uncertaintyBudget([['NaCl'], ['HCl'], ['NaCl']], [[5.8], [10], [0]], [['g'], ['mM'], ['g']], 1, 25, 'sit', null, 0, 0);
     expect(b.lines[0].note).not.toContain('one-sided');

@@ -89,6 +89,13 @@ describe('UNCERTAINTY: first-order checks that cannot be made are said', () => {
 
 describe('UNCERTAINTY: a row at amount 0, its density share in a small volume', () => {
   // one kg of sucrose against 1 mL: the density formula's step is 1 mmol/L of the row, not a fraction of one unit
+  test('MgSO4 0 g beside 1 mM HCl: the density formula\'s kinks near 0 are not stepped across', () => {
+    const b = uncertaintyBudget([['MgSO4'], ['HCl']], [[0], [1]], [['g'], ['mM']], 1, 25, 'davies', null, 0, 0);
+    const at = (d: number) => solve(prepareProblem(buildContents([{ reagent: 'MgSO4', amount: d, unit: 'g', row: 1 }, { reagent: 'HCl', amount: 1, unit: 'mM', row: 2 }], 1), 25, 'davies')).pH;
+    const h = 1e-6; // g: Richardson forward difference of the full solve
+    expect(Math.abs(b.lines[0].sensitivity / ((4 * at(h) - at(2 * h) - 3 * at(0)) / (2 * h)) - 1)).toBeLessThan(1e-5);
+  });
+
   test.each([[1e-3], [1e-4]])('sucrose 0 kg beside 1 mM HCl in %p L', (volumeL) => {
     const b = uncertaintyBudget([['sucrose'], ['HCl']], [[0], [1]], [['kg'], ['mM']], volumeL, 25, 'davies', null, 0, 0);
     const at = (d: number) => solve(prepareProblem(buildContents([{ reagent: 'sucrose', amount: d, unit: 'kg', row: 1 }, { reagent: 'HCl', amount: 1, unit: 'mM', row: 2 }], volumeL), 25, 'davies')).pH;

@@ -49,8 +49,10 @@ export interface BudgetSensitivities {
 const RELATIVE_STEP = 1e-4;
 /** pH move aimed at by an amount's or the volume's step (truncation of order its square, solve noise 1e-13 far below it). */
 const PH_STEP = 1e-4;
-/** Below this pH move over a step, the solves' own 1e-13 would show in the slope (1e-5 of it): the step grows. */
-const NOISE_MOVE = 1e-8;
+/** Below this pH move over a step, the solves' own scatter (up to about 1e-11 pH, in saline) would show in the slope (1e-4 of it): the step grows. */
+const NOISE_MOVE = 1e-7;
+/** The most a forward step adds of a row, mol/L. */
+const FORWARD_CAP_M = 1e-3;
 /** Temperature step, °C. */
 const TEMPERATURE_STEP_C = 0.01;
 /** pKa and pKw step. */
@@ -138,36 +140,45 @@ function resolvedSensitivities(eq: Equilibrium, pHWith: (input: BudgetInput, d: 
   const forward = (at: (d: number) => number) => (h: number): number => (4 * at(h) - at(2 * h) - 3 * eq.pH) / (2 * h);
   // the step fitted to the pH's own scale: where the pH moves by more than 2·PH_STEP over it (a steep region, an
   // equivalence point) the step shrinks to move it by PH_STEP; where by less than NOISE_MOVE (an input that barely acts,
-  // where the solves' 1e-13 would show) it grows to move it by 10·NOISE_MOVE, within maxStep; at most 6 times
-  const fitted = (difference: (h: number) => number, h0: number, maxStep: number): number => {
+  // where the solves' own scatter would show) it grows to move it by 10·NOISE_MOVE, within maxStep; at most 6 times.
+  // `resolved`: the last step moved the pH by NOISE_MOVE or more
+  const fitted = (difference: (h: number) => number, h0: number, maxStep: number): { slope: number; resolved: boolean } => {
     let h = Math.min(h0, maxStep), slope = difference(h);
     for (let k = 0; k < 6; k++) {
+      if (!Number.isFinite(slope)) break;
       const move = Math.abs(slope * h);
-      if (slope === 0 || !Number.isFinite(slope)) break;
-      const next = move > 2 * PH_STEP ? PH_STEP / Math.abs(slope) : move < NOISE_MOVE ? Math.min((10 * NOISE_MOVE) / Math.abs(slope), maxStep) : h;
+      const next = move > 2 * PH_STEP ? PH_STEP / Math.abs(slope) : move < NOISE_MOVE ? (slope === 0 ? maxStep : Math.min((10 * NOISE_MOVE) / Math.abs(slope), maxStep)) : h;
       if (!(next < h || next > h)) break;
       h = next;
       slope = difference(h);
     }
-    return slope;
+    return { slope, resolved: Math.abs(slope * h) >= NOISE_MOVE };
   };
-  // an amount's first step moves the pH by about PH_STEP as β·step of base would
+  // an amount's first step moves the pH by about PH_STEP as β·step of base would; no step adds more than
+  // FORWARD_CAP_M of the row (a row that barely acts would otherwise ask for kilograms)
   const beta = bufferCapacity(eq);
   const betaStepMol = PH_STEP * (Number.isFinite(beta) && beta > 0 ? beta : 1e-9) * volumeL;
   const perAmount = contents.rows.map((row, r) => {
     if (!(perUnit[r] > 0)) return 0; // water, or a row that releases nothing
-    const amount = row.moles / perUnit[r], hBeta = betaStepMol / perUnit[r], at = (d: number) => pHWith({ row: r }, d);
-    if (amount >= hBeta) return fitted(central({ row: r }, at), Math.min(hBeta, amount * RELATIVE_STEP), amount * 1e-2);
-    // at 0, or below the step that resolves it (0.1 + 0.2 − 0.3 in a cell): a step back would be a negative amount
+    const amount = row.moles / perUnit[r], cap = (FORWARD_CAP_M * volumeL) / perUnit[r];
+    const hBeta = Math.min(betaStepMol / perUnit[r], cap), at = (d: number) => pHWith({ row: r }, d);
+    if (amount >= hBeta) {
+      // steps up to a tenth of the amount; above a hundredth, Richardson-extrapolated (4 D(h/2) − D(h)) / 3 (error of
+      // order h⁴), since the pH can curve on the scale of the amount itself (a salt in water, through √I)
+      const c1 = central({ row: r }, at);
+      const c = fitted((h) => (h > amount * 1e-2 ? (4 * c1(h / 2) - c1(h)) / 3 : c1(h)), Math.min(hBeta, amount * RELATIVE_STEP), amount * 0.1);
+      if (c.resolved) return c.slope;
+    }
+    // at 0, or an amount too small for a central step that resolves it (0.1 + 0.2 − 0.3 in a cell): forward, up from it
     sided({ row: r }, amount > 0 ? 'the amount is below the step that resolves it, forward' : 'at amount 0, forward (a step back would be a negative amount)');
-    return fitted(forward(at), hBeta, Infinity);
+    return fitted(forward(at), hBeta, cap).slope;
   });
   const p = eq.problem;
   return {
     eq,
     perAmount,
     // rows given as concentrations do not depend on the volume: exactly 0, not the rounding of two solves
-    perLitre: concentrationRows.every(Boolean) ? 0 : fitted(central('volume', (d) => pHWith('volume', d)), volumeL * RELATIVE_STEP, volumeL * 1e-2),
+    perLitre: concentrationRows.every(Boolean) ? 0 : fitted(central('volume', (d) => pHWith('volume', d)), volumeL * RELATIVE_STEP, volumeL * 1e-2).slope,
     perKelvin: central('temperature', (d) => pHWith('temperature', d))(TEMPERATURE_STEP_C),
     perPKa: p.systems.map((s, i) => s.system.steps.map((_, k) => central({ system: i, step: k }, (d) => pHWith({ system: i, step: k }, d))(CONSTANT_STEP))),
     perPKw: central('pKw', (d) => pHWith('pKw', d))(CONSTANT_STEP),

@@ -175,8 +175,9 @@ export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, 
     const perUnit = molesPerUnit[r];
     if (!(perUnit > 0)) return 0; // water, or a row that releases nothing
     const along = contents.rows.map((_, k) => (k === r ? perUnit / contents.volumeL : 0));
-    // the density formula's slope by a difference of ± 1e-4 of the row's amount, or at amount 0 forward by 1 mmol/L of it
-    const viaDensity = perLnWater * (row.moles > 0 ? lnWaterSlope(p, contents, along, (1e-4 * row.moles) / perUnit) : lnWaterSlope(p, contents, along, (1e-3 * contents.volumeL) / perUnit, true));
+    // the density formula's slope by a difference of ± 1e-4 of the row's amount, or at amount 0 forward by 1 µmol/L of it
+    // (the formula has kinks where its protons change hands, within a few mmol/L of a row at 0; it has no solve noise)
+    const viaDensity = perLnWater * (row.moles > 0 ? lnWaterSlope(p, contents, along, (1e-4 * row.moles) / perUnit) : lnWaterSlope(p, contents, along, (1e-6 * contents.volumeL) / perUnit, true));
     let perMole = 0; // dpH per mole of reagent formula units, in the final volume
     for (const s of row.reagent.systems) {
       const i = p.systems.findIndex((x) => x.system.id === s.systemId);
