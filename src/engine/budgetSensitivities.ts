@@ -47,7 +47,7 @@ export interface BudgetSensitivities {
 
 /** Relative step of an amount or the volume for the central differences. */
 const RELATIVE_STEP = 1e-4;
-/** pH move aimed at by an amount's or the volume's step (truncation of order its square, solve noise 1e-13 far below it). */
+/** pH move aimed at by an amount's or the volume's step (truncation of order its square; the solves' scatter, up to 1e-11, far below it). */
 const PH_STEP = 1e-4;
 /** Below this pH move over a step, the solves' own scatter (up to about 1e-11 pH, in saline) would show in the slope (1e-4 of it): the step grows. */
 const NOISE_MOVE = 1e-7;
@@ -98,7 +98,6 @@ export function budgetSensitivities(rows: MixtureRow[], volumeL: number, tempera
 function movedSolve(eq: Equilibrium, contents: Contents, temperatureC: number, model: ActivityModel, concentrationRows: boolean[],
   perUnit: number[]): (input: BudgetInput, d: number) => number {
   const volumeL = contents.volumeL, baseMoles = contents.rows.map((r) => r.moles);
-  const baseContents = contentsWithMoles(contents, baseMoles, volumeL);
   const pHOf = (c: Contents, t: number, shift?: (p: Problem) => void): number => {
     const p = prepareProblem(c, t, model);
     shift?.(p);
@@ -109,10 +108,10 @@ function movedSolve(eq: Equilibrium, contents: Contents, temperatureC: number, m
       // rows given as concentrations of the final solution keep their concentration, the others dilute
       return pHOf(contentsWithMoles(contents, baseMoles.map((m, k) => (concentrationRows[k] ? (m * (volumeL + d)) / volumeL : m)), volumeL + d), temperatureC);
     }
-    if (input === 'temperature') return pHOf(baseContents, temperatureC + d);
-    if (input === 'pKw') return pHOf(baseContents, temperatureC, (q) => shiftConstants(q, [], d));
+    if (input === 'temperature') return pHOf(contents, temperatureC + d);
+    if (input === 'pKw') return pHOf(contents, temperatureC, (q) => shiftConstants(q, [], d));
     if ('row' in input) return pHOf(contentsWithMoles(contents, baseMoles.map((m, k) => (k === input.row ? m + d * perUnit[k] : m)), volumeL), temperatureC);
-    return pHOf(baseContents, temperatureC, (q) => shiftConstants(q, q.systems.map((s, j) => (j === input.system ? s.system.steps.map((_, m) => (m === input.step ? d : 0)) : [])), 0));
+    return pHOf(contents, temperatureC, (q) => shiftConstants(q, q.systems.map((s, j) => (j === input.system ? s.system.steps.map((_, m) => (m === input.step ? d : 0)) : [])), 0));
   };
 }
 
@@ -190,16 +189,19 @@ function resolvedSensitivities(eq: Equilibrium, pHWith: (input: BudgetInput, d: 
 /** Above this relative departure from first order over an input's ± limit, the budget says that its line is not linear. */
 export const LINEARITY_LIMIT = 0.1;
 
+/** A first-order move over a ± limit below this (pH) cannot matter to u(pH): its line is not checked for linearity. */
+export const NEGLIGIBLE_MOVE_PH = 1e-4;
+
 /**
  * How far the pH's actual moves over ± `half` of an input depart from the first-order move `sensitivity`·half: the
- * larger of |Δ(+half)/(s·half) − 1| and |Δ(−half)/(−s·half) − 1|, each from a full solve (a side that would be a negative
- * amount, below `lowest`, or that the data refuse is left out); undefined when no side can be solved or the first-order
- * move is below 1e-4 pH (its line cannot matter).
- * @example linearityDeparture(sens, { row: 1 }, 0.05, sens.perAmount[1], 0) // 0.002: linear over ± 0.05 of row 2's unit
+ * larger of |Δ(+half)/(s·half) − 1| and |Δ(−half)/(−s·half) − 1|, each from a full solve (a step below `lowest`, such as
+ * a negative amount, or one the data refuse is left out). 0 when the first-order move is below NEGLIGIBLE_MOVE_PH;
+ * undefined when no end can be solved.
+ * @example linearityDeparture(sens, { row: 1 }, 0.05, sens.perAmount[1], -3.55) // 0.002: linear over ± 0.05 of row 2's 3.55
  */
 export function linearityDeparture(sens: BudgetSensitivities, input: BudgetInput, half: number, sensitivity: number, lowest = -Infinity): number | undefined {
   const linear = sensitivity * half;
-  if (!(Math.abs(linear) >= 1e-4)) return undefined;
+  if (!(Math.abs(linear) >= NEGLIGIBLE_MOVE_PH)) return 0;
   const side = (d: number): number | undefined => {
     try { return (sens.pHWith(input, d) - sens.eq.pH) / (d > 0 ? linear : -linear); } catch (e) { if (e instanceof ProticError) return undefined; throw e; }
   };

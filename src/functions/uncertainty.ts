@@ -46,15 +46,32 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
     return one ? [note, `a one-sided difference: ${one.reason}`].filter(Boolean).join('; ') : note;
   };
   const lines: BudgetLine[] = [];
-  const keys: BudgetInput[] = [];
+  // the first-order budget holds only where the pH is close to linear over each ± limit (JCGM 101 is the check where not):
+  // each amount and the volume are solved at the ends of their limits, and a line that departs by more than 10 % says so.
+  // The pKa (± 0.02), pKw (± 0.01) and temperature lines are not: the pH's slope in them follows the speciation, which
+  // moves by a few hundredths of a pH unit over such limits, so they stay within a few % of first order.
+  const nonlinear: string[] = [];
+  const addNote = (l: BudgetLine, note: string): void => { l.note = [l.note, note].filter(Boolean).join('; '); };
+  const checkLinearity = (l: BudgetLine, key: BudgetInput, lowest: number, name: string): void => {
+    if (!(l.limit > 0)) return;
+    if (l.limit > -lowest) addNote(l, 'the ± limit is larger than the amount: below 0 is no mixture, so only the upper end is checked');
+    const departure = linearityDeparture(sens, key, l.limit, l.sensitivity, lowest);
+    if (departure !== undefined && departure <= LINEARITY_LIMIT) return;
+    nonlinear.push(name);
+    addNote(l, departure === undefined
+      ? 'first order could not be checked: the ends of the ± limit are refused'
+      : `not linear over ± ${Number(l.limit.toPrecision(3))}: the pH's move there departs from first order by ${Math.round(departure * 100)} %, so this line's contribution is not reliable (check by a Monte Carlo, JCGM 101, or narrow the tolerance)`);
+  };
   rows.forEach((r, i) => {
     const a = tol[r.row - 1];
-    keys.push({ row: i });
-    lines.push({ input: `amount: ${r.reagent}`, value: r.amount, unit: r.unit, limit: a, distribution: 'rectangular', u: a / RECT, sensitivity: sens.perAmount[i], note: sided({ row: i }, a === 0 ? 'no tolerance given' : '') });
+    const line: BudgetLine = { input: `amount: ${r.reagent}`, value: r.amount, unit: r.unit, limit: a, distribution: 'rectangular', u: a / RECT, sensitivity: sens.perAmount[i], note: sided({ row: i }, a === 0 ? 'no tolerance given' : '') };
+    lines.push(line);
+    checkLinearity(line, { row: i }, -r.amount, `${line.input} (row ${r.row})`);
   });
-  keys.push('volume', 'temperature');
-  lines.push({ input: 'final volume', value: volumeL, unit: 'L', limit: volTol, distribution: 'rectangular', u: volTol / RECT, sensitivity: sens.perLitre,
-    note: sided('volume', sens.concentrationRows.every(Boolean) ? 'rows given as concentrations do not depend on it' : '') });
+  const volumeLine: BudgetLine = { input: 'final volume', value: volumeL, unit: 'L', limit: volTol, distribution: 'rectangular', u: volTol / RECT, sensitivity: sens.perLitre,
+    note: sided('volume', sens.concentrationRows.every(Boolean) ? 'rows given as concentrations do not depend on it' : '') };
+  lines.push(volumeLine);
+  checkLinearity(volumeLine, 'volume', -Infinity, volumeLine.input);
   lines.push({ input: 'temperature', value: temperatureC, unit: '°C', limit: tTol, distribution: 'rectangular', u: tTol / RECT, sensitivity: sens.perKelvin,
     note: sided('temperature', 'through each pKa (its ΔrH°, ΔrCp°), pKw, the Debye–Hückel A and the kg of water per litre (the solution density)') });
   const p = sens.eq.problem;
@@ -63,38 +80,14 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
     s.system.steps.forEach((step, k) => {
       const stated = step.provenance.pKa.pKaPlusMinus;
       const input = `pKa ${s.system.name} ${k + 1}`, sensitivity = sens.perPKa[i][k], key = { system: i, step: k };
-      keys.push(key);
       lines.push(stated !== undefined
         ? { input, value: step.pKa, unit: '', limit: stated, distribution: 'normal (stated ± as u)', u: stated, sensitivity, note: sided(key, `stated in ${step.provenance.pKa.source}`) }
         : { input, value: step.pKa, unit: '', limit: ASSUMED_PKA_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKA_HALF_WIDTH / RECT, sensitivity,
           note: sided(key, `no uncertainty from the source (${step.provenance.pKa.level}): ±${ASSUMED_PKA_HALF_WIDTH} assumed`) });
     });
   });
-  keys.push('pKw');
   lines.push({ input: 'pKw', value: p.lnKw / -Math.LN10, unit: '', limit: ASSUMED_PKW_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKW_HALF_WIDTH / RECT, sensitivity: sens.perPKw,
     note: sided('pKw', `no uncertainty read from IAPWS R11-07: ±${ASSUMED_PKW_HALF_WIDTH} assumed`) });
-  // the first-order budget holds only where the pH is close to linear over each ± limit (JCGM 101 is the check where not):
-  // each amount and the volume are solved at the ends of their limits, and a line that departs by more than 10 % says so.
-  // The pKa (± 0.02), pKw (± 0.01) and temperature lines are not: the pH's slope in them follows the speciation, which
-  // moves by a few hundredths of a pH unit over such limits, so they stay within a few % of first order.
-  const nonlinear: string[] = [];
-  const addNote = (l: BudgetLine, note: string): void => { l.note = [l.note, note].filter(Boolean).join('; '); };
-  lines.forEach((l, n) => {
-    const key = keys[n];
-    if (!(l.limit > 0) || !(key === 'volume' || (typeof key === 'object' && 'row' in key))) return;
-    const isRow = typeof key === 'object';
-    const name = isRow ? `${l.input} (row ${rows[key.row].row})` : l.input;
-    if (isRow && l.limit > l.value) addNote(l, 'the ± limit is larger than the amount: below 0 is no mixture, so only the upper end is checked');
-    const departure = linearityDeparture(sens, key, l.limit, l.sensitivity, isRow ? -l.value : -Infinity);
-    if (departure === undefined) {
-      // no end could be solved while the first-order move matters: say so rather than pass it as linear
-      if (Math.abs(l.sensitivity * l.limit) >= 1e-4) { nonlinear.push(name); addNote(l, 'first order could not be checked: the ends of the ± limit are refused'); }
-      return;
-    }
-    if (departure <= LINEARITY_LIMIT) return;
-    nonlinear.push(name);
-    addNote(l, `not linear over ± ${Number(l.limit.toPrecision(3))}: the pH's move there departs from first order by ${Math.round(departure * 100)} %, so this line's contribution is not reliable (check by a Monte Carlo, JCGM 101, or narrow the tolerance)`);
-  });
   const combined = Math.sqrt(lines.reduce((sum, l) => sum + (l.sensitivity * l.u) ** 2, 0));
   return { pH: sens.eq.pH, lines, combined, method: sens.method, nonlinear };
 }
