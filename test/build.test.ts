@@ -148,12 +148,15 @@ describe('the built add-in', () => {
   // warning) and the solution-density fits (density.ts, densities.ts) took it to about 188 KiB, and the preparation
   // caches that made a solve 5× cheaper (part descriptors, species tables, keyTrie.ts) to about 195 KiB, and UNCERTAINTY
   // under sit (budgetSensitivities.ts: differences of full solves, rows at amount 0, stocks that fill the volume) to
-  // about 198.6 KiB. The row asserts the size of the miss, so it fails when the bundle grows further or when it is
-  // brought back under the target (then restore the plain bound).
-  test('what the functions need (runtime, shared chunk, functions): known miss of the 150 KB target, about 199 KiB', () => {
+  // about 198.6 KiB (200.8 with its review mends), and the sit refresh's held strong-ion share (sit.ts, a sit re-solve
+  // 6 % cheaper), the departure check's sit tolerance and the sit copy of an alternative-pKa solve to about 201.8 KiB,
+  // and the re-adjustment of stocks written with a pH (stockReadjustment.ts: UNCERTAINTY's stated-pH line and constant
+  // lines, CONSTANTS' alternative shift) to about 206.4 KiB. The row asserts the size of the miss, so it fails when the
+  // bundle grows further or when it is brought back under the target (then restore the plain bound).
+  test('what the functions need (runtime, shared chunk, functions): known miss of the 150 KB target, about 206 KiB', () => {
     const kib = ['runtime.js', 'shared.js', 'functions.js'].reduce((s, f) => s + statSync(join(out, f)).size, 0) / 1024;
     expect(kib).toBeGreaterThan(150);
-    expect(kib).toBeLessThan(201);
+    expect(kib).toBeLessThan(208);
   });
 
   test('the bundles carry neither the spreadsheet engine nor a test library', () => {

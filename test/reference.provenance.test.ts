@@ -1,6 +1,6 @@
 import { ACID_SYSTEMS, REAGENTS, stepProvenances } from '../src/catalogue';
 import type { ProvenanceLevel } from '../src/catalogue';
-import { pKaAt } from '../src/engine';
+import { pKaAt, parseReagentSpec } from '../src/engine';
 import * as impl from '../src/functions/impl';
 
 const step = (id: string, k = 0) => ACID_SYSTEMS.find((s) => s.id === id)!.steps[k];
@@ -134,6 +134,34 @@ describe('disputed values: both kept, the rule stated, the alternative shown as 
     expect(Math.sign(shift)).toBe(Math.sign(alternative - used));
     expect(Math.abs(shift)).toBeGreaterThan(0.002);
     expect(Math.abs(shift)).toBeLessThan(Math.abs(alternative - used));
+  });
+});
+
+describe('the alternative\'s pH shift with a stock written with a pH: the stock is re-made at the alternative', () => {
+  // A stock at its stated pH stays there whichever constant is used (it was brought there on a meter). Its own
+  // solution, used as it is (1 L to 1 L), must then read the same pH at the alternative: a shift of 0, an identity
+  // no code of the re-adjustment enters. Holding its titrant instead gave the whole shift of its own solution.
+  const shiftOf = (stock: string, system: string, k: number, amounts: number[][], reagents: string[][], units: string[][]): number => {
+    const table = impl.constants(reagents, amounts, units, 1, 25, 'davies') as (string | number)[][];
+    return table.find((r) => r[0] === `pKa ${system}` && r[1] === k)![10] as number;
+  };
+  test.each([
+    ['1 M sodium formate pH 3.75 with HCl', 'formate', 1],
+    ['0.2 M sodium oxalate pH 4.0 with HCl', 'oxalate', 2],
+    ['0.5 M maleic acid pH 2.0 with NaOH', 'maleate', 1],
+  ] as const)('%s, alone: shift 0 (within 1e-9)', (stock, system, k) => {
+    expect(Math.abs(shiftOf(stock, system, k, [[1]], [[stock]], [['L']]))).toBeLessThan(1e-9);
+  });
+
+  test('diluted tenfold into saline the shift is small but not 0, and far below the held-titrant one', () => {
+    const stock = '1 M sodium formate pH 3.75 with HCl';
+    const diluted = shiftOf(stock, 'formate', 1, [[100], [5]], [[stock], ['NaCl']], [['mL'], ['g']]);
+    // the same mixture written out as its parts (the stock's formate and the HCl it took, both held): the old figure
+    const hcl = 0.1 * (parseReagentSpec(stock, 'reagents').made?.adjusted?.contents.ionMoles.get('Cl-') ?? NaN);
+    const held = shiftOf(stock, 'formate', 1, [[0.1], [hcl], [5]], [['sodium formate'], ['HCl'], ['NaCl']], [['M'], ['M'], ['g']]);
+    expect(held).toBeGreaterThan(0.004);
+    expect(Math.abs(diluted)).toBeGreaterThan(1e-7);
+    expect(Math.abs(diluted)).toBeLessThan(0.01 * held);
   });
 });
 

@@ -1,5 +1,6 @@
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
-import { buildContents, prepareProblem, solve } from '../src/engine';
+import * as impl from '../src/functions/impl';
+import { buildContents, prepareProblem, solve, updateIonSums } from '../src/engine';
 import type { MixtureRow } from '../src/engine';
 
 // The sit solve's two paths (joint Newton with the lagged specific-ion offsets, and the bracketed fixed point
@@ -21,6 +22,39 @@ describe('sit: joint Newton and the bracketed fixed point agree', () => {
     const bracketed = solve(prepareProblem(buildContents(rows, 1), 25, 'sit'), undefined, 'bracketed');
     expect(Math.abs(joint.pH - bracketed.pH)).toBeLessThan(1e-11);
     expect(joint.residualRelative).toBeLessThan(1e-12);
+  });
+});
+
+describe('sit: the strong ions\' share of the offsets follows their molalities', () => {
+  // The refresh holds the strong ions' part of each offset (and of ln aw) while their molalities are unchanged; an
+  // inverse solve moves them on the same problem (linearTarget.setAmounts). A problem solved, then moved, must
+  // solve as one moved before its first solve, whose share is computed from the moved molalities.
+  const rows = [r('acetic acid', 0.1, 'M', 1), r('sodium acetate', 0.05, 'M', 2), r('NaCl', 0.5, 'M', 3)];
+  const moveSalt = (p: ReturnType<typeof prepareProblem>): void => {
+    for (const ion of p.ions) ion.concentrationM *= ion.id === 'Na+' || ion.id === 'Cl-' ? 3 : 1;
+    updateIonSums(p);
+  };
+  test('NaCl tripled after a solve: pH as if tripled before it, to 1e-12', () => {
+    const solvedFirst = prepareProblem(buildContents(rows, 1), 25, 'sit');
+    const before = solve(solvedFirst).pH;
+    moveSalt(solvedFirst);
+    const movedFirst = prepareProblem(buildContents(rows, 1), 25, 'sit');
+    moveSalt(movedFirst);
+    const reference = solve(movedFirst).pH;
+    expect(Math.abs(reference - before)).toBeGreaterThan(0.05); // the move matters: ε(Na⁺, acetate) and ln aw at 1.5 mol/kg
+    expect(Math.abs(solve(solvedFirst).pH - reference)).toBeLessThan(1e-12);
+  });
+});
+
+describe('sit: a side solve leaves the cached solution as it was', () => {
+  // CONSTANTS re-solves the mixture with a step's alternative pKa (maleate step 1); that copy shared the sit state of the
+  // cached problem, so SPECIES afterwards printed γ and activities from the other constant's solution (1e-6 relative here)
+  test('SPECIES after CONSTANTS (an alternative pKa re-solved) is SPECIES before it, every cell', () => {
+    const args = [[['maleic acid'], ['NaOH'], ['NaCl']], [[0.05], [0.05], [1]], [['M'], ['M'], ['M']], 1, 25, 'sit'] as const;
+    const before = impl.species(...args);
+    const constants = impl.constants(...args);
+    expect(constants.some((row) => row[0] === 'pKa maleate' && typeof row[10] === 'number' && Math.abs(row[10]) > 0.01)).toBe(true);
+    expect(impl.species(...args)).toEqual(before);
   });
 });
 

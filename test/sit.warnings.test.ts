@@ -1,5 +1,5 @@
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
-import { PHSensitivity, ProticError, buildContents, parseModel, prepareProblem, solve } from '../src/engine';
+import { PHSensitivity, ProticError, buildContents, parseModel, prepareProblem, sitDeparture, solve } from '../src/engine';
 import * as impl from '../src/functions/impl';
 import { uncertaintyBudget } from '../src/functions/uncertainty';
 import * as sitModule from '../src/engine/sit';
@@ -28,6 +28,15 @@ describe('the departure warning follows the difference from sit', () => {
       const flagged = /departs from the SIT model's/.test(warning);
       expect([nacl, flagged]).toEqual([nacl, Math.abs(pH - sit) > 0.02]);
       if (flagged) expect(warning).toContain(`(${sit.toFixed(3)}) by ${Math.abs(pH - sit).toFixed(3)}`);
+    }
+  });
+
+  test('the departure check\'s sit pH (offsets settled to 1e-9) is the full sit solve\'s within 1e-8', () => {
+    const rows = (nacl: number) => [{ reagent: 'NaH2PO4', amount: 0.02, unit: 'M', row: 1 }, { reagent: 'Na2HPO4', amount: 0.03, unit: 'M', row: 2 }, { reagent: 'NaCl', amount: nacl, unit: 'M', row: 3 }];
+    for (const nacl of [0.05, 0.3, 1, 2.5]) {
+      const contents = buildContents(rows(nacl), 1);
+      const departure = sitDeparture(solve(prepareProblem(contents, 25, 'davies')));
+      expect([nacl, Math.abs((departure?.pH ?? NaN) - solve(prepareProblem(contents, 25, 'sit')).pH) < 1e-8]).toEqual([nacl, true]);
     }
   });
 

@@ -21,6 +21,8 @@ export interface AdjustedStockText {
   concentrationM: number;
   reagentText: string;
   targetPH: number;
+  /** decimals the target pH was written with (pH 8.0: 1) */
+  targetPHDecimals: number;
   /** the titrant as written, or undefined to choose HCl or NaOH by the side of the target */
   titrantText?: string;
   temperatureC: number;
@@ -51,7 +53,7 @@ export function parseAdjustedStock(text: string): AdjustedStockText | undefined 
     titrantText = short[2];
   }
   return {
-    concentrationM: num(m[1]) * unit.toBase, reagentText, targetPH: num(m[4]), titrantText,
+    concentrationM: num(m[1]) * unit.toBase, reagentText, targetPH: num(m[4]), targetPHDecimals: /[.,](\d+)$/.exec(m[4])?.[1].length ?? 0, titrantText,
     temperatureC: m[6] === undefined ? 25 : num(m[6]), model: m[7] === undefined ? 'davies' : parseModel(m[7], 'reagents'),
   };
 }
@@ -91,5 +93,6 @@ export function adjustedStockComposition(s: AdjustedStockText, text: string, arg
     systemsMPerL: contents.systemMoles,
     ionsMPerL: contents.ionMoles,
     warning: modelWarning(made) === '' ? undefined : `the stock ${name} itself, as adjusted at ${s.temperatureC} °C: ${modelWarning(made)}`,
+    adjusted: { statedPH: s.targetPH, statedHalfDigit: 0.5 * 10 ** -s.targetPHDecimals, contents, titrant: titrant.resolved.reagent, temperatureC: s.temperatureC, model },
   };
 }

@@ -1,10 +1,12 @@
 import type { Problem } from './problem';
+import { prepareSit } from './sit';
 import { solve } from './solver';
 import { pKaAt } from './temperature';
 
 /**
  * A copy of a problem with one step's 25 °C pKa replaced (its ΔrH° and ΔrCp° kept), so the original, which
- * may be cached and shared, is untouched.
+ * may be cached and shared, is untouched: under sit the copy has specific-ion offsets of its own (a shared state
+ * would leave the original's γ, which SPECIES prints, at the other constant's solution).
  */
 export function withStepPKa(problem: Problem, systemIndex: number, stepIndex: number, pKa25: number): Problem {
   const systems = problem.systems.map((s, i) => {
@@ -13,7 +15,9 @@ export function withStepPKa(problem: Problem, systemIndex: number, stepIndex: nu
     lnKa[stepIndex] = -pKaAt({ ...s.system.steps[stepIndex], pKa: pKa25 }, problem.temperatureC) * Math.LN10;
     return { ...s, lnKa, lnCumK: new Float64Array(s.lnCumK.length) };
   });
-  return { ...problem, systems, totalsM: Float64Array.from(problem.totalsM), ions: problem.ions.map((ion) => ({ ...ion })), evaluations: 0 };
+  const copy: Problem = { ...problem, systems, totalsM: Float64Array.from(problem.totalsM), ions: problem.ions.map((ion) => ({ ...ion })), evaluations: 0, sit: undefined };
+  if (problem.sit) copy.sit = prepareSit(copy);
+  return copy;
 }
 
 /**

@@ -8,6 +8,8 @@ import { bufferCapacity } from './results';
 import type { Equilibrium } from './solver';
 import { solve } from './solver';
 import { isConcentrationUnit, parseUnit } from './units';
+import { readjustedStocks } from './stockReadjustment';
+import type { ReadjustedStock } from './stockReadjustment';
 import { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
 
 // The pH sensitivities an uncertainty budget needs, one shape for every model. Davies, Bates–Guggenheim and ideal:
@@ -37,6 +39,11 @@ export interface BudgetSensitivities {
   concentrationRows: boolean[];
   /** inputs whose difference had to be one-sided, each with the reason */
   oneSided: { input: BudgetInput; reason: string }[];
+  /**
+   * The rows that are stocks adjusted to a stated pH: perPKa and perPKw above include each one's re-adjustment (its
+   * titrant follows the constant, stockReadjustment.ts); its stated pH is an input with its own sensitivity.
+   */
+  stocks: ReadjustedStock[];
   /**
    * The pH of a full solve with one input moved by d (in its unit: the row's, L, °C, pKa or pKw units), every other as
    * read; for the budget's check of its first-order propagation over each ± limit. Throws a coded failure where the
@@ -77,10 +84,11 @@ export function budgetSensitivities(rows: MixtureRow[], volumeL: number, tempera
   // moles per unit of each row's amount: from the row itself, or for a row at 0 from its reagent and unit
   const perUnit = rows.map((row, r) => (row.amount > 0 ? contents.rows[r].moles / row.amount : molesPerUnit(row, volumeL)));
   const pHWith = movedSolve(eq, contents, temperatureC, model, concentrationRows, perUnit);
-  if (model === 'sit') return { ...resolvedSensitivities(eq, pHWith, perUnit, contents, concentrationRows), concentrationRows, pHWith };
+  const stocks = readjustedStocks(rows, contents, eq, temperatureC, model);
+  if (model === 'sit') return withReadjustedStocks({ ...resolvedSensitivities(eq, pHWith, perUnit, contents, concentrationRows), concentrationRows, pHWith, stocks });
   const sens = new PHSensitivity(eq);
   const p = eq.problem;
-  return {
+  return withReadjustedStocks({
     eq,
     pHWith,
     perAmount: rowAmountSensitivities(sens, contents, perUnit),
@@ -91,7 +99,16 @@ export function budgetSensitivities(rows: MixtureRow[], volumeL: number, tempera
     method: 'sensitivities: implicit derivatives of the solve',
     concentrationRows,
     oneSided: [],
-  };
+    stocks,
+  });
+}
+
+/** The constants' sensitivities with each pH-adjusted stock's re-adjustment added (the mixture's own are partials at its composition). */
+function withReadjustedStocks(sens: BudgetSensitivities): BudgetSensitivities {
+  if (sens.stocks.length === 0) return sens;
+  const perPKa = sens.perPKa.map((steps, i) => steps.map((direct, k) => sens.stocks.reduce((sum, s) => sum + s.perPKa[i][k], direct)));
+  const perPKw = sens.stocks.reduce((sum, s) => sum + s.perPKw, sens.perPKw);
+  return { ...sens, perPKa, perPKw, method: `${sens.method}; each stock written with a pH re-adjusted to it as a constant moves (its titrant re-solved, central differences of full solves)` };
 }
 
 /** A full solve of the mixture as read with one input moved by d, started from the solution's own ln h. */
@@ -117,7 +134,7 @@ function movedSolve(eq: Equilibrium, contents: Contents, temperatureC: number, m
 
 /** Under sit: every sensitivity a central difference of full solves. */
 function resolvedSensitivities(eq: Equilibrium, pHWith: (input: BudgetInput, d: number) => number, perUnit: number[], contents: Contents,
-  concentrationRows: boolean[]): Omit<BudgetSensitivities, 'concentrationRows' | 'pHWith'> {
+  concentrationRows: boolean[]): Omit<BudgetSensitivities, 'concentrationRows' | 'pHWith' | 'stocks'> {
   const oneSided: { input: BudgetInput; reason: string }[] = [];
   const volumeL = contents.volumeL;
   const sided = (input: BudgetInput, reason: string): void => {

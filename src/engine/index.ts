@@ -46,6 +46,8 @@ export type { AdjustedStockText } from './adjustedStock';
 export { pHWithStepPKa, withStepPKa } from './alternative';
 export { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
 export { LINEARITY_LIMIT, budgetSensitivities, linearityDeparture, sameInput } from './budgetSensitivities';
+export { pHWithStepPKaReadjusted, readjustedStocks } from './stockReadjustment';
+export type { ReadjustedStock } from './stockReadjustment';
 export type { BudgetInput, BudgetSensitivities } from './budgetSensitivities';
 export { LADDER_EFFECTS, handLadder } from './handcheck';
 export type { HandLadder } from './handcheck';

@@ -27,10 +27,21 @@ export interface SitState {
   nVariable: number;
   charges: Float64Array;
   keys: string[];
-  /** the pairs with an ε, each once: species a, species b, ln10·ε */
+  /** the pairs with an ε, each once: species a, species b, ln10·ε; those of two variable species first (`variablePairs` of them) */
   pairA: Int32Array;
   pairB: Int32Array;
   pairLnEps: Float64Array;
+  variablePairs: number;
+  /**
+   * The strong ions' share, fixed while their molalities are (a solve does not move them): each variable species'
+   * offset from its strong partners, and Σm, Σz²m and the pair sum of the strong ions among themselves. Refreshed
+   * when a strong ion's molality differs from `strongMolal` (an inverse solve moves its own reagent's ions).
+   */
+  strongOffset: number[];
+  strongMolal: number[];
+  strongSumM: number;
+  strongZ2M: number;
+  strongPairSum: number;
   /** 1/ρw, L/kg: molality per mol/L */
   inverseRho: number;
   estimated: EstimatedPair[];
@@ -41,13 +52,12 @@ export interface SitState {
   next: number[];
   nextLnWaterActivity: number;
   molal: number[];
-  all: number[];
 }
 
 /** What a species list fixes once and for all: keys, charges, where each system's forms start, and the ε pairs. */
 interface SpeciesTable {
   keys: string[]; charges: Float64Array; formStart: Int32Array; nVariable: number;
-  pairA: Int32Array; pairB: Int32Array; pairLnEps: Float64Array; estimated: EstimatedPair[];
+  pairA: Int32Array; pairB: Int32Array; pairLnEps: Float64Array; variablePairs: number; estimated: EstimatedPair[];
   /** zeros as packed arrays of doubles, copied for each problem's offsets and scratch (see prepareSit) */
   zerosVariable: number[]; zerosAll: number[];
 }
@@ -82,8 +92,13 @@ function speciesTable(problem: Problem): SpeciesTable {
       if (epsilon !== 0) { pairA.push(a); pairB.push(b); pairLnEps.push(Math.LN10 * epsilon); }
     }
   }
+  // the pairs of two variable species first: the refresh in a solve walks only these (see SitState.strongOffset)
+  const order = pairLnEps.map((_, k) => k);
+  const bothVariable = (k: number): boolean => pairA[k] < nVariable && pairB[k] < nVariable;
+  order.sort((x, y) => Number(bothVariable(y)) - Number(bothVariable(x)) || x - y);
   const table: SpeciesTable = { keys, charges: Float64Array.from(charges), formStart, nVariable,
-    pairA: Int32Array.from(pairA), pairB: Int32Array.from(pairB), pairLnEps: Float64Array.from(pairLnEps), estimated,
+    pairA: Int32Array.from(order, (k) => pairA[k]), pairB: Int32Array.from(order, (k) => pairB[k]),
+    pairLnEps: Float64Array.from(order, (k) => pairLnEps[k]), variablePairs: order.filter(bothVariable).length, estimated,
     zerosVariable: doubleZeros(nVariable), zerosAll: doubleZeros(n) };
   return speciesTables.set(node, table);
 }
@@ -117,9 +132,12 @@ export function prepareSit(problem: Problem): SitState {
   // copies of packed double arrays: a typed array over 64 bytes is allocated outside the heap, at about ten times the cost
   return {
     formStart: t.formStart, nVariable: t.nVariable, charges: t.charges, keys: t.keys, estimated: t.estimated,
-    pairA: t.pairA, pairB: t.pairB, pairLnEps: t.pairLnEps, inverseRho: Math.exp(-problem.lnWaterDensity),
-    offset: t.zerosVariable.slice(), lnWaterActivity: 0, next: t.zerosAll.slice(), nextLnWaterActivity: 0,
-    molal: t.zerosAll.slice(), all: t.zerosAll.slice(),
+    pairA: t.pairA, pairB: t.pairB, pairLnEps: t.pairLnEps, variablePairs: t.variablePairs, inverseRho: Math.exp(-problem.lnWaterDensity),
+    // NaN: no strong share computed yet (a molality never equals NaN, so the first refresh computes it)
+    strongOffset: t.zerosVariable.slice(), strongMolal: t.zerosAll.slice(t.nVariable).fill(NaN),
+    strongSumM: 0, strongZ2M: 0, strongPairSum: 0,
+    offset: t.zerosVariable.slice(), lnWaterActivity: 0, next: t.zerosVariable.slice(), nextLnWaterActivity: 0,
+    molal: t.zerosAll.slice(),
   };
 }
 
@@ -146,31 +164,30 @@ function fillMolalities(problem: Problem, sit: SitState, lnH: number): void {
 }
 
 /**
- * Computes, at ln h with the current constants, the offsets of every species (into `sit.all`) and ln aw;
- * the variable species' offsets go to `sit.next`. Returns how far they are from those in use (ln units).
+ * Computes, at ln h with the current constants, the offsets of the variable species (into `sit.next`) and ln aw.
+ * Returns how far they are from those in use (ln units).
  * `atLastEvaluation`: ln h is the point of the last charge-balance evaluation, whose molalities of the
  * water ions and forms chargeBalanceJacobian has left in `sit.molal` (saves their exponentials).
  */
 export function sitRefresh(problem: Problem, lnH: number, atLastEvaluation = false): number {
   const sit = problem.sit as SitState;
-  const m = sit.molal, n = sit.keys.length, all = sit.all;
-  if (atLastEvaluation) {
-    const ions = problem.ions;
-    for (let k = 0; k < ions.length; k++) m[sit.nVariable + k] = ions[k].concentrationM * sit.inverseRho;
-  } else {
-    fillMolalities(problem, sit, lnH);
-  }
-  let sumM = 0, z2m = 0, pairSum = 0;
-  for (let a = 0; a < n; a++) {
-    all[a] = 0;
-    sumM += m[a];
-    z2m += sit.charges[a] * sit.charges[a] * m[a];
+  if (!atLastEvaluation) fillMolalities(problem, sit, lnH);
+  const m = sit.molal, nVar = sit.nVariable, next = sit.next, z = sit.charges, base = sit.strongOffset;
+  if (strongShareMoved(problem, sit)) strongShare(sit);
+  let sumM = sit.strongSumM, z2m = sit.strongZ2M, pairSum = sit.strongPairSum;
+  // a variable species with its strong partners: Σ_b 2 ε m_a m_b = 2 m_a · (its strong offset)
+  for (let a = 0; a < nVar; a++) {
+    const ma = m[a];
+    next[a] = base[a];
+    sumM += ma;
+    z2m += z[a] * z[a] * ma;
+    pairSum += 2 * ma * base[a];
   }
   const pa = sit.pairA, pb = sit.pairB, pe = sit.pairLnEps;
-  for (let k = 0; k < pe.length; k++) {
+  for (let k = 0; k < sit.variablePairs; k++) {
     const a = pa[k], b = pb[k], e = pe[k];
-    all[a] += e * m[b];
-    all[b] += e * m[a];
+    next[a] += e * m[b];
+    next[b] += e * m[a];
     pairSum += 2 * e * m[a] * m[b];
   }
   // SIT osmotic coefficient: Σm(1 − φ) = (2/3) ln10 A I^3/2 σ(b√I) − ln10 Σc Σa ε mc ma (the pair sum counts each pair twice)
@@ -178,11 +195,40 @@ export function sitRefresh(problem: Problem, lnH: number, atLastEvaluation = fal
   const oneMinusPhiSum = (2 / 3) * Math.LN10 * problem.debyeHuckelA * ionic * root * osmoticSigma(SIT_B * root) - pairSum / 2;
   sit.nextLnWaterActivity = -WATER_KG_PER_MOL * (sumM - oneMinusPhiSum);
   let change = Math.abs(sit.nextLnWaterActivity - sit.lnWaterActivity);
-  for (let a = 0; a < sit.nVariable; a++) {
-    sit.next[a] = sit.all[a];
-    change = Math.max(change, Math.abs(sit.all[a] - sit.offset[a]));
+  for (let a = 0; a < nVar; a++) {
+    change = Math.max(change, Math.abs(next[a] - sit.offset[a]));
   }
   return change;
+}
+
+/** Writes the strong ions' molalities into `sit.molal`; true when one differs from those the strong share was computed with. */
+function strongShareMoved(problem: Problem, sit: SitState): boolean {
+  const ions = problem.ions, m = sit.molal, nVar = sit.nVariable, held = sit.strongMolal;
+  let moved = false;
+  for (let k = 0; k < ions.length; k++) {
+    const mk = ions[k].concentrationM * sit.inverseRho;
+    m[nVar + k] = mk;
+    if (mk !== held[k]) { held[k] = mk; moved = true; }
+  }
+  return moved;
+}
+
+/** The strong ions' share of the refresh (SitState.strongOffset), from the strong molalities in `sit.molal`. */
+function strongShare(sit: SitState): void {
+  const m = sit.molal, nVar = sit.nVariable, n = sit.keys.length, z = sit.charges, base = sit.strongOffset;
+  let sumM = 0, z2m = 0, pairSum = 0;
+  for (let a = nVar; a < n; a++) { sumM += m[a]; z2m += z[a] * z[a] * m[a]; }
+  for (let a = 0; a < nVar; a++) base[a] = 0;
+  const pa = sit.pairA, pb = sit.pairB, pe = sit.pairLnEps;
+  for (let k = sit.variablePairs; k < pe.length; k++) {
+    const a = pa[k], b = pb[k], e = pe[k];
+    if (a < nVar) base[a] += e * m[b];
+    else if (b < nVar) base[b] += e * m[a];
+    else pairSum += 2 * e * m[a] * m[b];
+  }
+  sit.strongSumM = sumM;
+  sit.strongZ2M = z2m;
+  sit.strongPairSum = pairSum;
 }
 
 /**
@@ -233,7 +279,14 @@ export function sitRestore(problem: Problem, snapshot: { offset: number[]; lnWat
 export function sitStrongOffsets(problem: Problem, lnH: number): number[] {
   const sit = problem.sit as SitState;
   sitRefresh(problem, lnH);
-  return problem.ions.map((_, k) => sit.all[sit.nVariable + k]);
+  // the refresh in a solve leaves the strong ions' own offsets out (nothing in the solve reads them): every pair here
+  const m = sit.molal, nVar = sit.nVariable, out = problem.ions.map(() => 0);
+  for (let k = 0; k < sit.pairLnEps.length; k++) {
+    const a = sit.pairA[k], b = sit.pairB[k], e = sit.pairLnEps[k];
+    if (a >= nVar) out[a - nVar] += e * m[b];
+    if (b >= nVar) out[b - nVar] += e * m[a];
+  }
+  return out;
 }
 
 /**

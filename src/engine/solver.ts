@@ -157,7 +157,7 @@ const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scal
  * L − g(I(y, L)) = 0, with analytic derivatives; converges in a few evaluations from a fair start.
  * Returns undefined when it does not settle, and the caller falls back to the bracketed method.
  */
-function solveJoint(problem: Problem, yStart: number | undefined): { y: number; f: number; scale: number; ionic: number } | undefined {
+function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: number): { y: number; f: number; scale: number; ionic: number } | undefined {
   let L = lnGammaZ2For(problem, startingIonicStrength(problem));
   let y = yStart ?? startingLnH(problem, L);
   // first offsets from the starting guess (no shift: the guess is no root to move)
@@ -176,7 +176,7 @@ function solveJoint(problem: Problem, yStart: number | undefined): { y: number; 
     // the specific-ion offsets follow the speciation, lagged one step; a root counts only once they have settled
     if (problem.sit) {
       const moved = sitRefresh(problem, y, true);
-      if (converged && moved <= SIT_TOLERANCE) return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM };
+      if (converged && moved <= sitTolerance) return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM };
       // the Newton step below is still taken: it is this point's own, and the new offsets' shift is added to it
       y += sitApply(problem, j11);
     } else if (converged) {
@@ -223,11 +223,14 @@ function settleActivity(problem: Problem, yStart: number | undefined): number {
  * Solves the equilibrium: the charge balance in ln h with the ionic strength taken from the
  * speciation itself, self-consistently. A joint Newton step first; if it does not settle, the
  * bracketed Newton in ln h (which cannot fail) inside a fixed-point loop on the ionic strength.
+ * `sitTolerance`: how far (ln units) the sit offsets may still move at the root the joint Newton accepts; the
+ * bracketed fallback always settles them to SIT_TOLERANCE.
+ * @example solve(prepareProblem(buildContents([{ reagent: 'acetic acid', amount: 0.1, unit: 'M', row: 1 }], 1), 25, 'davies')).pH // ≈ 2.88
  */
-export function solve(problem: Problem, yStart?: number, method: 'auto' | 'bracketed' = 'auto'): Equilibrium {
+export function solve(problem: Problem, yStart?: number, method: 'auto' | 'bracketed' = 'auto', sitTolerance = SIT_TOLERANCE): Equilibrium {
   const before = problem.evaluations;
   if (problem.model !== 'ideal' && method === 'auto') {
-    const joint = solveJoint(problem, yStart);
+    const joint = solveJoint(problem, yStart, sitTolerance);
     if (joint && Math.abs(joint.f) / joint.scale < 1e-12) {
       return { problem, lnH: joint.y, pH: pHFromLnH(problem, joint.y), ionicStrengthM: joint.ionic, residualRelative: Math.abs(joint.f) / joint.scale, evaluations: problem.evaluations - before };
     }

@@ -1,4 +1,6 @@
 import type { Reagent } from '../catalogue';
+import type { ActivityModel } from './activity';
+import type { Contents } from './mixture';
 import { STRONG_IONS } from '../catalogue';
 import { fail, quote } from './failure';
 import { allSystems } from './registry';
@@ -22,6 +24,20 @@ export interface StockComposition {
   ionsMPerL: Map<string, number>;
   /** the model warnings of how it was made (a 1 M stock adjusted outside the activity model's range), carried to every use */
   warning?: string;
+  /** for a stock adjusted to a stated pH (adjustedStock.ts), how it was made; not written into a handle, which is an exact composition */
+  adjusted?: AdjustedMaking;
+}
+
+/** How a pH-adjusted stock was made: one litre of it, the titrant that set its pH, and the conditions of the adjustment. */
+export interface AdjustedMaking {
+  statedPH: number;
+  /** half a unit of the last digit the stated pH was written to (pH 8.0: 0.05) */
+  statedHalfDigit: number;
+  /** one litre of the stock as made, the titrant included */
+  contents: Contents;
+  titrant: Reagent;
+  temperatureC: number;
+  model: ActivityModel;
 }
 
 /** FNV-1a, 32 bit, as 8 hex digits: catches edits and truncation (not a security seal). */

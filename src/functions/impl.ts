@@ -1,7 +1,7 @@
 import { ADDIN_VERSION, CATALOGUE_VERSION, levelLabel } from '../catalogue';
 import {
   apparentPKas, checkSystemRange, checkWaterRange, fail, fractionsAtPH,
-  WATER_RANGE_C, WATER_SOURCES, debyeHuckelA, pHWithStepPKa, fractionsAt, looksLikeFormula, modelWarning, pKw, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
+  WATER_RANGE_C, WATER_SOURCES, debyeHuckelA, pHWithStepPKa, pHWithStepPKaReadjusted, fractionsAt, looksLikeFormula, modelWarning, pKw, molarMassGPerMol, molarMassOfReagent, molesToUnit, parseModel, parseReagentSpec,
   MAX_REAGENT_TEXT, ProticError, pKaAt, quote, reagentByName, recipeForTarget, resolveReagent, resolveSystem, speciesRows,
   titrantForTarget, titrantUnit, unitToMoles, withTitrant,
 } from '../engine';
@@ -56,6 +56,11 @@ export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: C
   const p = eq.problem;
   const m = { temperatureC: p.temperatureC, model: p.model };
   const table: CellScalar[][] = [CONSTANTS_HEADER];
+  // a stock written with a pH is at that pH whichever constant is used: the alternative re-makes it (stockReadjustment.ts)
+  const read = readMixture(reagents, amounts, units, volume, temperature, model);
+  const withStocks = read.rows.some((r) => parseReagentSpec(r.reagent, 'reagents', r.row).made?.adjusted !== undefined);
+  const alternativePH = (i: number, k: number, pKa25: number): number => (withStocks
+    ? pHWithStepPKaReadjusted(read.rows, contentsOf(read.rows, read.volumeL), eq, i, k, pKa25) : pHWithStepPKa(p, i, k, pKa25));
   p.systems.forEach((s, i) => {
     const alpha = fractionsAt(s.lnCumK, eq.lnH);
     s.system.steps.forEach((step, k) => {
@@ -67,7 +72,7 @@ export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: C
         step.provenance.dCp && `ΔrCp° ${levelLabel(step.provenance.dCp)}`].filter(Boolean).join('; ');
       const alt = step.alternative;
       // the other published value, re-solved: how much the choice between the two moves this mixture's pH
-      const altShift = alt ? finite(pHWithStepPKa(p, i, k, alt.pKa) - eq.pH, 'pH shift') : '';
+      const altShift = alt ? finite(alternativePH(i, k, alt.pKa) - eq.pH, 'pH shift') : '';
       table.push([`pKa ${s.system.name}`, k + 1, finite(pKaAt(step, m.temperatureC), 'pKa'), apparent, step.source,
         step.dHkJPerMol ?? '', step.dCpJPerKMol ?? '', `${range[0]}–${range[1]}`, level,
         alt ? alt.pKa : '', altShift]);

@@ -15,6 +15,8 @@ export const UNCERTAINTY_HEADER = ['input', 'value', 'unit', '± limit or stated
 export const ASSUMED_PKA_HALF_WIDTH = 0.02;
 /** Half-width assumed for pKw (the IAPWS release's own uncertainty statement was not read here). */
 export const ASSUMED_PKW_HALF_WIDTH = 0.01;
+/** Least half-width of a stock's stated pH: a meter calibrated at two points reads to about ± 0.02 (common practice, from memory). */
+export const STATED_PH_METER_HALF_WIDTH = 0.02;
 
 const RECT = Math.sqrt(3);
 
@@ -74,20 +76,32 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   checkLinearity(volumeLine, 'volume', -Infinity, volumeLine.input);
   lines.push({ input: 'temperature', value: temperatureC, unit: '°C', limit: tTol, distribution: 'rectangular', u: tTol / RECT, sensitivity: sens.perKelvin,
     note: sided('temperature', 'through each pKa (its ΔrH°, ΔrCp°), pKw, the Debye–Hückel A and the kg of water per litre (the solution density)') });
+  // a stock written with a pH is at that pH (brought there on a meter): the pH as stated is an input, and the constants'
+  // lines move its titrant with them (budgetSensitivities' stocks)
+  for (const stock of sens.stocks) {
+    const limit = Math.max(stock.making.statedHalfDigit, STATED_PH_METER_HALF_WIDTH);
+    lines.push({ input: `stated pH: ${stock.name}`, value: stock.making.statedPH, unit: 'pH', limit, distribution: 'rectangular', u: limit / RECT, sensitivity: stock.perStatedPH,
+      note: `the stock is taken to be at the pH it is written with, its titrant re-solved to it; ± the larger of half its last written digit and ${STATED_PH_METER_HALF_WIDTH} (a meter calibrated at two points, common practice)` });
+  }
+  const readjusted = (pick: (s: (typeof sens.stocks)[number]) => number): string => {
+    const names = sens.stocks.filter((s) => pick(s) !== 0).map((s) => s.name);
+    return names.length === 0 ? '' : `with ${names.join(', ')} re-adjusted to ${names.length === 1 ? 'its' : 'their'} stated pH as it moves`;
+  };
   const p = sens.eq.problem;
   p.systems.forEach((s, i) => {
     if (p.totalsM[i] <= 0) return;
     s.system.steps.forEach((step, k) => {
       const stated = step.provenance.pKa.pKaPlusMinus;
       const input = `pKa ${s.system.name} ${k + 1}`, sensitivity = sens.perPKa[i][k], key = { system: i, step: k };
+      const also = readjusted((x) => x.perPKa[i][k]);
       lines.push(stated !== undefined
-        ? { input, value: step.pKa, unit: '', limit: stated, distribution: 'normal (stated ± as u)', u: stated, sensitivity, note: sided(key, `stated in ${step.provenance.pKa.source}`) }
+        ? { input, value: step.pKa, unit: '', limit: stated, distribution: 'normal (stated ± as u)', u: stated, sensitivity, note: sided(key, [`stated in ${step.provenance.pKa.source}`, also].filter(Boolean).join('; ')) }
         : { input, value: step.pKa, unit: '', limit: ASSUMED_PKA_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKA_HALF_WIDTH / RECT, sensitivity,
-          note: sided(key, `no uncertainty from the source (${step.provenance.pKa.level}): ±${ASSUMED_PKA_HALF_WIDTH} assumed`) });
+          note: sided(key, [`no uncertainty from the source (${step.provenance.pKa.level}): ±${ASSUMED_PKA_HALF_WIDTH} assumed`, also].filter(Boolean).join('; ')) });
     });
   });
   lines.push({ input: 'pKw', value: p.lnKw / -Math.LN10, unit: '', limit: ASSUMED_PKW_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKW_HALF_WIDTH / RECT, sensitivity: sens.perPKw,
-    note: sided('pKw', `no uncertainty read from IAPWS R11-07: ±${ASSUMED_PKW_HALF_WIDTH} assumed`) });
+    note: sided('pKw', [`no uncertainty read from IAPWS R11-07: ±${ASSUMED_PKW_HALF_WIDTH} assumed`, readjusted((x) => x.perPKw)].filter(Boolean).join('; ')) });
   const combined = Math.sqrt(lines.reduce((sum, l) => sum + (l.sensitivity * l.u) ** 2, 0));
   return { pH: sens.eq.pH, lines, combined, method: sens.method, nonlinear };
 }
