@@ -1,4 +1,6 @@
-import { applyCustomDefinitions, clearCustomDefinitions } from '../src/engine';
+import { ACID_SYSTEMS } from '../src/catalogue';
+import type { AcidSystem } from '../src/catalogue';
+import { applyCustomDefinitions, clearCustomDefinitions, parseReagentSpec } from '../src/engine';
 import * as impl from '../src/functions/impl';
 import { STATED_PH_METER_HALF_WIDTH, uncertaintyBudget } from '../src/functions/uncertainty';
 import { evaluateSheet } from '../scripts/lib/sheetEngine';
@@ -76,5 +78,80 @@ describe('the stated pH line', () => {
     expect(Number(stated?.[6])).toBeGreaterThan(0.9);
     expect(Math.abs(Number(pKa?.[6]))).toBeLessThan(0.1);
     expect(Math.abs(Number(u?.[1]) - Number(stated?.[7])) / Number(u?.[1])).toBeLessThan(0.01);
+  });
+});
+
+// The catalogue constant itself moved, for catalogue systems: the step's 25 °C pKa changed in place (the system marked
+// custom so its ln Ka is recomputed rather than read from the per-temperature cache), the parse caches dropped, every
+// stock re-made by the production path; put back afterwards.
+function withCatalogueStep<T>(systemId: string, step: number, pKa25: number, f: () => T): T {
+  const s = ACID_SYSTEMS.find((x) => x.id === systemId) as AcidSystem;
+  const old = s.steps[step].pKa, oldCustom = s.custom;
+  const set = (pKa: number, custom: boolean | undefined): void => {
+    (s.steps[step] as { pKa: number }).pKa = pKa;
+    (s as { custom?: boolean }).custom = custom;
+    clearCustomDefinitions(); // drops the parsed reagents and stocks
+  };
+  set(pKa25, true);
+  try { return f(); } finally { set(old, oldCustom); }
+}
+const pKa25Of = (systemId: string, step: number): number => (ACID_SYSTEMS.find((x) => x.id === systemId) as AcidSystem).steps[step].pKa;
+
+describe('catalogue stocks, against the catalogue constant moved in place (± 0.002, central)', () => {
+  const cases: [string, string[][], number[][], string[][], number, string, string, number][] = [
+    ['Tris-HCl stock made at 37 °C, mixture at 25 °C', [['1 M Tris-HCl pH 8.0 at 37 °C'], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 25, 'davies', 'tris', 0],
+    ['acetate stock brought up with NaOH, diluted', [['1 M acetic acid pH 4.8 with NaOH'], ['KCl']], [[100], [3.7]], [['mL'], ['g']], 25, 'davies', 'acetate', 0],
+    ['a stock adjusted under sit, in a davies mixture at 30 °C', [['0.5 M Tris pH 7.5 with HCl under sit'], ['NaCl']], [[40], [5]], [['mL'], ['g']], 30, 'davies', 'tris', 0],
+    ['two stocks of one system (Tris at pH 8.0 and 7.2), sit mixture', [['1 M Tris-HCl pH 8.0'], ['1 M Tris-HCl pH 7.2'], ['NaCl']], [[30], [20], [29.2]], [['mL'], ['mL'], ['g']], 25, 'sit', 'tris', 0],
+  ];
+  test.each(cases)('%s', (_, reagentsIn, amounts, units, temperatureC, model, systemId, step) => {
+    const name = (ACID_SYSTEMS.find((x) => x.id === systemId) as AcidSystem).name;
+    const line = uncertaintyBudget(reagentsIn, amounts, units, 1, temperatureC, model).lines.find((l) => l.input === `pKa ${name} ${step + 1}`);
+    const at = (d: number): number => withCatalogueStep(systemId, step, pKa25Of(systemId, step) + d, () => impl.ph(reagentsIn, amounts, units, 1, temperatureC, model) as number);
+    const independent = (at(0.002) - at(-0.002)) / 0.004;
+    expect(Math.abs((line?.sensitivity ?? NaN) - independent)).toBeLessThan(1e-5);
+  });
+
+  test('two rows of one stock are one stated-pH input, as the same litres in one row', () => {
+    const split = uncertaintyBudget([['1 M Tris-HCl pH 8.0'], ['1 M Tris-HCl pH 8.0'], ['NaCl']], [[20], [30], [8.77]], [['mL'], ['mL'], ['g']], 1, 25, 'davies');
+    const one = uncertaintyBudget([['1 M Tris-HCl pH 8.0'], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1, 25, 'davies');
+    const stated = (b: typeof one) => b.lines.filter((l) => l.input.startsWith('stated pH:'));
+    expect(stated(split)).toHaveLength(1);
+    expect(stated(split)[0].note).toMatch(/rows 1, 2 draw on this one stock: one input/);
+    expect(Math.abs(stated(split)[0].sensitivity - stated(one)[0].sensitivity)).toBeLessThan(1e-9);
+    expect(Math.abs(split.combined - one.combined)).toBeLessThan(1e-9);
+  });
+
+  test('at an equivalence point the stock\'s stated pH and the pKa it follows are flagged as not linear, and so is u(pH)', () => {
+    // 100 mL of an acetate stock at pH 4.76 and the NaOH that brings the whole to equivalence: ± 0.02 in the stock's pH
+    // moves the mixture by about ± 2, first order says ± 31
+    const stock = '1 M acetic acid pH 4.76 with NaOH';
+    const na = parseReagentSpec(stock, 'reagents').made?.ionsMPerL.get('Na+') as number;
+    const b = uncertaintyBudget([[stock], ['NaOH']], [[100], [0.1 - 0.1 * na]], [['mL'], ['mol']], 1, 25, 'davies');
+    expect(b.nonlinear).toEqual([`stated pH: ${stock}`, 'pKa acetate 1']);
+    expect(b.lines.find((l) => l.input.startsWith('stated pH:'))?.note).toMatch(/not linear over ± 0\.02/);
+  });
+});
+
+describe('CONSTANTS: the alternative\'s shift with the stock re-made, against the catalogue constant set to the alternative', () => {
+  test.each([
+    ['formate stock diluted into saline', [['1 M sodium formate pH 3.75 with HCl'], ['NaCl']], [[100], [5]], [['mL'], ['g']], 25, 'formate', 0],
+    ['formate stock made at 37 °C, used at 25 °C', [['1 M sodium formate pH 3.75 with HCl at 37 °C'], ['NaCl']], [[100], [5]], [['mL'], ['g']], 25, 'formate', 0],
+    ['oxalate step 2, mixture at 37 °C', [['0.2 M sodium oxalate pH 4.0 with HCl'], ['KCl']], [[250], [2]], [['mL'], ['g']], 37, 'oxalate', 1],
+  ] as const)('%s', (_, reagentsIn, amounts, units, temperatureC, systemId, step) => {
+    const s = ACID_SYSTEMS.find((x) => x.id === systemId) as AcidSystem;
+    const table = impl.constants(reagentsIn, amounts, units, 1, temperatureC, 'davies');
+    const shift = table.find((r) => r[0] === `pKa ${s.name}` && r[1] === step + 1)?.[10] as number;
+    const base = impl.ph(reagentsIn, amounts, units, 1, temperatureC, 'davies') as number;
+    const atAlternative = withCatalogueStep(systemId, step, s.steps[step].alternative?.pKa as number, () => impl.ph(reagentsIn, amounts, units, 1, temperatureC, 'davies') as number);
+    expect(Math.abs(shift - (atAlternative - base))).toBeLessThan(1e-9);
+  });
+
+  test('a stock its own titrant cannot bring to its pH at the alternative: that cell says why, the table stands', () => {
+    // formic acid barely brought up with NaOH: at the alternative (a weaker acid) it would need less than none
+    const table = impl.constants([['1 M formic acid pH 1.8708 with NaOH']], [[1]], [['L']], 1, 25, 'davies');
+    const row = table.find((r) => r[0] === 'pKa formate');
+    expect(row?.[10]).toMatch(/^not computed: .*its titrant would have to go below none/);
+    expect(table.some((r) => r[0] === 'pKw')).toBe(true);
   });
 });

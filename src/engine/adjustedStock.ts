@@ -40,6 +40,12 @@ function num(text: string): number {
   return Number(text.replace(',', '.'));
 }
 
+/** Decimals a number was written with (8.0: 1; 8: 0; 80.5e-1: 2), its resolution for the stated pH's limit. */
+function decimalsOf(text: string): number {
+  const m = /^\d*(?:[.,](\d*))?(?:[eE]([-+]?\d+))?$/.exec(text);
+  return Math.max(0, (m?.[1]?.length ?? 0) - Number(m?.[2] ?? 0));
+}
+
 /** Reads `<concentration> <reagent> pH <x> [with <titrant>] [at <T> °C]`, or undefined when the text is not one. */
 export function parseAdjustedStock(text: string): AdjustedStockText | undefined {
   const m = PATTERN.exec(text);
@@ -53,7 +59,7 @@ export function parseAdjustedStock(text: string): AdjustedStockText | undefined 
     titrantText = short[2];
   }
   return {
-    concentrationM: num(m[1]) * unit.toBase, reagentText, targetPH: num(m[4]), targetPHDecimals: /[.,](\d+)$/.exec(m[4])?.[1].length ?? 0, titrantText,
+    concentrationM: num(m[1]) * unit.toBase, reagentText, targetPH: num(m[4]), targetPHDecimals: decimalsOf(m[4]), titrantText,
     temperatureC: m[6] === undefined ? 25 : num(m[6]), model: m[7] === undefined ? 'davies' : parseModel(m[7], 'reagents'),
   };
 }
@@ -93,6 +99,7 @@ export function adjustedStockComposition(s: AdjustedStockText, text: string, arg
     systemsMPerL: contents.systemMoles,
     ionsMPerL: contents.ionMoles,
     warning: modelWarning(made) === '' ? undefined : `the stock ${name} itself, as adjusted at ${s.temperatureC} °C: ${modelWarning(made)}`,
-    adjusted: { statedPH: s.targetPH, statedHalfDigit: 0.5 * 10 ** -s.targetPHDecimals, contents, titrant: titrant.resolved.reagent, temperatureC: s.temperatureC, model },
+    adjusted: { statedPH: s.targetPH, statedHalfDigit: 0.5 * 10 ** -s.targetPHDecimals, contents, titrant: titrant.resolved.reagent, titrantMPerL: result.moles,
+      temperatureC: s.temperatureC, model },
   };
 }

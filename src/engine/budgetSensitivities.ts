@@ -8,17 +8,20 @@ import { bufferCapacity } from './results';
 import type { Equilibrium } from './solver';
 import { solve } from './solver';
 import { isConcentrationUnit, parseUnit } from './units';
-import { readjustedStocks } from './stockReadjustment';
-import type { ReadjustedStock } from './stockReadjustment';
-import { PHSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
+import { CHECK_REMADE_PH_TOLERANCE, readjustedStocks, withRemadeStocks } from './stockReadjustment';
+import type { ConstantMove, ReadjustedStock } from './stockReadjustment';
+import { PHSensitivity, reagentSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
 
 // The pH sensitivities an uncertainty budget needs, one shape for every model. Davies, Bates–Guggenheim and ideal:
 // the solver's implicit derivatives (uncertainty.ts). sit: each species' ε term moves with the composition and the
 // speciation, which the implicit derivatives hold fixed, so each sensitivity is a central difference of two full
 // solves of the mixture as read (its rows' moles moved, density and sit offsets and all), as CAPACITY under sit is.
 
-/** Which input a sensitivity belongs to: a row by its index in `rows`, the volume, the temperature, a pKa, pKw. */
-export type BudgetInput = { row: number } | 'volume' | 'temperature' | { system: number; step: number } | 'pKw';
+/**
+ * Which input a sensitivity belongs to: a row by its index in `rows`, the volume, the temperature, a pKa, pKw, or the
+ * stated pH of a pH-adjusted stock by its index in `stocks`.
+ */
+export type BudgetInput = { row: number } | 'volume' | 'temperature' | { system: number; step: number } | 'pKw' | { stock: number };
 
 /** dpH per unit of each input of a budget, at the solution `eq`. */
 export interface BudgetSensitivities {
@@ -45,9 +48,9 @@ export interface BudgetSensitivities {
    */
   stocks: ReadjustedStock[];
   /**
-   * The pH of a full solve with one input moved by d (in its unit: the row's, L, °C, pKa or pKw units), every other as
-   * read; for the budget's check of its first-order propagation over each ± limit. Throws a coded failure where the
-   * moved mixture is refused.
+   * The pH of a full solve with one input moved by d (in its unit: the row's, L, °C, pKa, pKw or pH units), every other
+   * as read, each pH-adjusted stock re-made to its pH where a constant or its stated pH moves; for the budget's check of
+   * its first-order propagation over each ± limit. Throws a coded failure where the moved mixture is refused.
    */
   pHWith(input: BudgetInput, d: number): number;
 }
@@ -69,7 +72,8 @@ const CONSTANT_STEP = 1e-3;
 export function sameInput(a: BudgetInput, b: BudgetInput): boolean {
   if (typeof a === 'string' || typeof b === 'string') return a === b;
   if ('row' in a) return 'row' in b && a.row === b.row;
-  return 'system' in b && a.system === b.system && a.step === b.step;
+  if ('stock' in a) return 'stock' in b && a.stock === b.stock;
+  return 'system' in a && 'system' in b && a.system === b.system && a.step === b.step;
 }
 
 /**
@@ -83,10 +87,16 @@ export function budgetSensitivities(rows: MixtureRow[], volumeL: number, tempera
   const concentrationRows = rows.map((r) => isConcentrationUnit(parseUnit(r.unit, 'units', r.row)));
   // moles per unit of each row's amount: from the row itself, or for a row at 0 from its reagent and unit
   const perUnit = rows.map((row, r) => (row.amount > 0 ? contents.rows[r].moles / row.amount : molesPerUnit(row, volumeL)));
-  const pHWith = movedSolve(eq, contents, temperatureC, model, concentrationRows, perUnit);
-  const stocks = readjustedStocks(rows, contents, eq, temperatureC, model);
-  if (model === 'sit') return withReadjustedStocks({ ...resolvedSensitivities(eq, pHWith, perUnit, contents, concentrationRows), concentrationRows, pHWith, stocks });
+  // the stocks held as read (the partial sensitivities), and re-made where a constant or a stated pH moves (the check)
+  const held = movedSolve(eq, contents, temperatureC, model, concentrationRows, perUnit, []);
+  if (model === 'sit') {
+    const stocks = readjustedStocks(rows, contents, eq, temperatureC, model);
+    const pHWith = stocks.length === 0 ? held : movedSolve(eq, contents, temperatureC, model, concentrationRows, perUnit, stocks);
+    return withReadjustedStocks({ ...resolvedSensitivities(eq, held, perUnit, contents, concentrationRows), concentrationRows, pHWith, stocks });
+  }
   const sens = new PHSensitivity(eq);
+  const stocks = readjustedStocks(rows, contents, eq, temperatureC, model, (reagent) => reagentSensitivity(sens, contents, reagent));
+  const pHWith = stocks.length === 0 ? held : movedSolve(eq, contents, temperatureC, model, concentrationRows, perUnit, stocks);
   const p = eq.problem;
   return withReadjustedStocks({
     eq,
@@ -111,24 +121,31 @@ function withReadjustedStocks(sens: BudgetSensitivities): BudgetSensitivities {
   return { ...sens, perPKa, perPKw, method: `${sens.method}; each stock written with a pH re-adjusted to it as a constant moves (its titrant re-solved, central differences of full solves)` };
 }
 
-/** A full solve of the mixture as read with one input moved by d, started from the solution's own ln h. */
+/**
+ * A full solve of the mixture as read with one input moved by d, started from the solution's own ln h; `stocks` (the
+ * pH-adjusted ones) are re-made where a constant or their stated pH moves, and held as read otherwise.
+ */
 function movedSolve(eq: Equilibrium, contents: Contents, temperatureC: number, model: ActivityModel, concentrationRows: boolean[],
-  perUnit: number[]): (input: BudgetInput, d: number) => number {
+  perUnit: number[], stocks: ReadjustedStock[]): (input: BudgetInput, d: number) => number {
   const volumeL = contents.volumeL, baseMoles = contents.rows.map((r) => r.moles);
   const pHOf = (c: Contents, t: number, shift?: (p: Problem) => void): number => {
     const p = prepareProblem(c, t, model);
     shift?.(p);
     return solve(p, eq.lnH).pH;
   };
+  const remade = (move: ConstantMove): Contents => (stocks.length === 0 ? contents : withRemadeStocks(contents, stocks, move, () => 0, CHECK_REMADE_PH_TOLERANCE));
   return (input, d) => {
     if (input === 'volume') {
       // rows given as concentrations of the final solution keep their concentration, the others dilute
       return pHOf(contentsWithMoles(contents, baseMoles.map((m, k) => (concentrationRows[k] ? (m * (volumeL + d)) / volumeL : m)), volumeL + d), temperatureC);
     }
     if (input === 'temperature') return pHOf(contents, temperatureC + d);
-    if (input === 'pKw') return pHOf(contents, temperatureC, (q) => shiftConstants(q, [], d));
+    if (input === 'pKw') return pHOf(remade({ pKwShift: d }), temperatureC, (q) => shiftConstants(q, [], d));
     if ('row' in input) return pHOf(contentsWithMoles(contents, baseMoles.map((m, k) => (k === input.row ? m + d * perUnit[k] : m)), volumeL), temperatureC);
-    return pHOf(contents, temperatureC, (q) => shiftConstants(q, q.systems.map((s, j) => (j === input.system ? s.system.steps.map((_, m) => (m === input.step ? d : 0)) : [])), 0));
+    if ('stock' in input) return pHOf(withRemadeStocks(contents, [stocks[input.stock]], undefined, () => d, CHECK_REMADE_PH_TOLERANCE), temperatureC);
+    const systemId = eq.problem.systems[input.system].system.id;
+    return pHOf(remade({ systemId, step: input.step, pKaShift: d }), temperatureC,
+      (q) => shiftConstants(q, q.systems.map((s, j) => (j === input.system ? s.system.steps.map((_, m) => (m === input.step ? d : 0)) : [])), 0));
   };
 }
 

@@ -36,6 +36,8 @@ export interface AdjustedMaking {
   /** one litre of the stock as made, the titrant included */
   contents: Contents;
   titrant: Reagent;
+  /** the titrant the adjustment took, mol per litre of stock */
+  titrantMPerL: number;
   temperatureC: number;
   model: ActivityModel;
 }

@@ -13,22 +13,42 @@ import { shiftConstants } from './uncertainty';
 
 // A stock written with a pH (`1 M Tris pH 8.0 with HCl`) is at that pH: it was brought there on a meter. Its titrant is
 // what the catalogue constants say that took, so a constant that moves moves the titrant with it, and the stock stays
-// at its stated pH. The budget's constant lines therefore differentiate the mixture with each such stock re-adjusted:
+// at its pH. The budget's constant lines therefore differentiate the mixture with each such stock re-adjusted:
 // d pH/dθ = ∂pH/∂θ + Σ_stocks ∂pH/∂n · dn/dθ, with dn/dθ = −(∂pH_stock/∂θ)/(∂pH_stock/∂n) from the stock's own
 // solve (implicit function of its adjustment), n its titrant in mol per litre of stock; and the stated pH is an input
-// of its own, dn/dpH_stated = 1/(∂pH_stock/∂n). Every partial is a central difference of full solves.
+// of its own, dn/dpH_stated = 1/(∂pH_stock/∂n). Every partial is a central difference of full solves. A moved
+// constant moves by the same amount at the stock's temperature and at the mixture's (one constant, one error).
 
 /** pH move aimed at by a titrant step (as budgetSensitivities' amount steps). */
 const PH_STEP = 1e-4;
 /** pKa and pKw step. */
 const CONSTANT_STEP = 1e-3;
+/** A re-made stock reads its made pH (plus any move of the stated pH) to this, at the solve that returns it (CONSTANTS). */
+const REMADE_PH_TOLERANCE = 1e-10;
+/**
+ * The same for the budget's first-order check, which compares a pH move over a ± limit with first order against a 10 %
+ * threshold and prints it to 1 %: 1e-8 pH is below 1e-4 of the smallest move it checks (NEGLIGIBLE_MOVE_PH).
+ */
+export const CHECK_REMADE_PH_TOLERANCE = 1e-8;
+/** Most secant steps a stock's re-making may take before it is refused. */
+const REMAKE_STEPS = 40;
 
-/** What the budget needs of one pH-adjusted stock row. */
-export interface ReadjustedStock {
-  /** index of the row in the budget's rows */
-  row: number;
+/** A constant moved, addressed by system id so that it reads in the stock's problem and in the mixture's. */
+export type ConstantMove = { systemId: string; step: number; pKaShift: number } | { pKwShift: number } | { systemId: string; step: number; pKa25: number };
+
+/** One bottle of a pH-adjusted stock in a mixture: the rows that draw on it and the litres they hold together. */
+export interface StockUse {
+  /** indices in the mixture's rows */
+  rows: number[];
+  /** the first of them as numbered in messages (1-based, as typed) */
+  rowNumber: number;
   name: string;
   making: AdjustedMaking;
+  litres: number;
+}
+
+/** What the budget needs of one stock: its use, and its contributions to the sensitivities. */
+export interface ReadjustedStock extends StockUse {
   /** dpH of the mixture per unit of the stock's stated pH (its titrant re-solved to it) */
   perStatedPH: number;
   /** [system][step] of the mixture: dpH added through this stock's re-adjustment per unit of that pKa */
@@ -37,122 +57,195 @@ export interface ReadjustedStock {
   perPKw: number;
 }
 
-/** pH of a solve, with the problem's constants moved first. */
-function pHOf(contents: Contents, temperatureC: number, model: ActivityModel, lnHStart: number, shift?: (p: Problem) => void): number {
-  const p = prepareProblem(contents, temperatureC, model);
-  shift?.(p);
-  return solve(p, lnHStart).pH;
+/** The stock's own solve and partials, which depend on nothing in the mixture: worked out once per stock. */
+interface StockPartials {
+  madePH: number;
+  lnH: number;
+  /** dpH_stock per mol/L of its titrant */
+  perN: number;
+  /** dpH_stock per unit of each step's pKa, by system id */
+  perPKa: Map<string, number[]>;
+  /** each step's 25 °C pKa as the stock was made with it, by system id */
+  pKa25: Map<string, number[]>;
+  /** re-made titrants already solved, by move (they depend on the stock alone: a table of mixtures drawing on it reuses them) */
+  remade: Map<string, number>;
+  perPKw: number;
+}
+const partialsOf = new WeakMap<AdjustedMaking, StockPartials>();
+
+/** The move applied to a prepared problem (a system it does not hold is left as it is). */
+function applyMove(q: Problem, move: ConstantMove | undefined): Problem {
+  if (move === undefined) return q;
+  if ('pKwShift' in move) { shiftConstants(q, [], move.pKwShift); return q; }
+  const j = q.systems.findIndex((s) => s.system.id === move.systemId);
+  if (j < 0) return q;
+  if ('pKa25' in move) return withStepPKa(q, j, move.step, move.pKa25);
+  shiftConstants(q, q.systems.map((s, m) => (m === j ? Array.from(s.lnKa, (_, n) => (n === move.step ? move.pKaShift : 0)) : [])), 0);
+  return q;
 }
 
-/** d pH / d(moles of `reagent` added), central where `held` moles (already in) allow the step back, else forward (Richardson). */
-function perMolesOf(at: (moles: number) => number, pH0: number, step: number, held: number): number {
-  if (held > 2 * step) return (at(step) - at(-step)) / (2 * step);
-  return (4 * at(step) - at(2 * step) - 3 * pH0) / (2 * step);
+function touches(making: AdjustedMaking, move: ConstantMove | undefined): boolean {
+  return move !== undefined && ('pKwShift' in move || making.contents.systemMoles.has(move.systemId));
 }
 
 /** `contents` with `moles` of `reagent` added (a copy: the stock's own contents are cached and shared). */
-export function withReagent(contents: Contents, reagent: AdjustedMaking['titrant'], moles: number): Contents {
+function withReagent(contents: Contents, reagent: AdjustedMaking['titrant'], moles: number): Contents {
   const out = cloneContents(contents);
   addReagent(out, reagent, moles);
   return out;
 }
 
-/** Moles of a reagent's first component in contents (its titrant's share, for whether a step back fits). */
+/** Moles of a reagent's first component in contents: whether a step back in it leaves the mixture physical. */
 function heldMoles(contents: Contents, reagent: AdjustedMaking['titrant']): number {
   const ion = reagent.ions[0], system = reagent.systems[0];
   if (ion) return (contents.ionMoles.get(ion.ionId) ?? 0) / ion.count;
   return system ? (contents.systemMoles.get(system.systemId) ?? 0) / system.count : 0;
 }
 
-/**
- * The pH-adjusted stock rows of a budget's mixture, each with its contribution to the constants' sensitivities and
- * its stated pH's own. `contents`, `eq`: the mixture as read and its solution under `model` at `temperatureC`.
- * @example readjustedStocks([{ reagent: '1 M Tris pH 8.0 with HCl', amount: 50, unit: 'mL', row: 1 }], contents, eq, 25, 'davies')[0].perPKa
- *   // [[≈ −1]]: the Tris line's direct ≈ +1 is taken back by the stock's HCl following the pKa
- */
-export function readjustedStocks(rows: MixtureRow[], contents: Contents, eq: Equilibrium, temperatureC: number, model: ActivityModel): ReadjustedStock[] {
-  const out: ReadjustedStock[] = [];
-  const p = eq.problem;
+/** d pH / d(moles added), central where `held` allows the step back, else forward (Richardson, error of order step²). */
+function perMolesOf(at: (moles: number) => number, pH0: number, step: number, held: number): number {
+  if (held > 2 * step) return (at(step) - at(-step)) / (2 * step);
+  return (4 * at(step) - at(2 * step) - 3 * pH0) / (2 * step);
+}
+
+/** A step that moves a pH by about PH_STEP in a solution of buffer capacity β (mol/(L·pH)) and `litres`. */
+function stepFor(beta: number, litres: number): number {
+  return PH_STEP * (Number.isFinite(beta) && beta > 1e-9 ? beta : 1e-9) * litres;
+}
+
+/** The stock's pH with its titrant moved by `delta` mol/L and its problem moved by `move`. */
+function stockPH(making: AdjustedMaking, delta: number, move: ConstantMove | undefined, lnHStart?: number): number {
+  const c = delta === 0 ? making.contents : withReagent(making.contents, making.titrant, delta);
+  return solve(applyMove(prepareProblem(c, making.temperatureC, making.model), move), lnHStart).pH;
+}
+
+function stockPartials(making: AdjustedMaking): StockPartials {
+  const kept = partialsOf.get(making);
+  if (kept) return kept;
+  const made = solve(prepareProblem(making.contents, making.temperatureC, making.model));
+  const at = (delta: number, move?: ConstantMove): number => stockPH(making, delta, move, made.lnH);
+  const perN = perMolesOf((d) => at(d), made.pH, stepFor(bufferCapacity(made), 1), making.titrantMPerL);
+  const perConstant = (move: (d: number) => ConstantMove): number => (at(0, move(CONSTANT_STEP)) - at(0, move(-CONSTANT_STEP))) / (2 * CONSTANT_STEP);
+  const perPKa = new Map(made.problem.systems.map((s) => [s.system.id, s.system.steps.map((_, step) => perConstant((d) => ({ systemId: s.system.id, step, pKaShift: d })))]));
+  const pKa25 = new Map(made.problem.systems.map((s) => [s.system.id, s.system.steps.map((step) => step.pKa)]));
+  const partials = { madePH: made.pH, lnH: made.lnH, perN, perPKa, pKa25, perPKw: perConstant((d) => ({ pKwShift: d })), remade: new Map<string, number>() };
+  partialsOf.set(making, partials);
+  return partials;
+}
+
+/** The pH-adjusted stocks a mixture draws on, each bottle once (two rows of one stock text are one bottle). */
+export function stockUses(rows: MixtureRow[], contents: Contents): StockUse[] {
+  const uses = new Map<AdjustedMaking, StockUse>();
   rows.forEach((row, r) => {
     const making = parseReagentSpec(row.reagent, 'reagents', row.row).made?.adjusted;
     const litres = contents.rows[r].moles; // a made solution's reagent is one litre of it
     if (!making || !(litres > 0)) return;
-    // the stock's own partials, at its own temperature and model
-    const stock = solve(prepareProblem(making.contents, making.temperatureC, making.model));
-    const stepN = PH_STEP * Math.max(bufferCapacity(stock), 1e-9);
-    const stockAt = (moles: number, shift?: (q: Problem) => void): number =>
-      pHOf(moles === 0 ? making.contents : withReagent(making.contents, making.titrant, moles), making.temperatureC, making.model, stock.lnH, shift);
-    const perN = perMolesOf((d) => stockAt(d), stock.pH, stepN, heldMoles(making.contents, making.titrant));
-    const stockSystems = stock.problem.systems.map((s) => s.system.id);
-    const stockPerConstant = (shiftOf: (d: number) => (q: Problem) => void): number =>
-      (stockAt(0, shiftOf(CONSTANT_STEP)) - stockAt(0, shiftOf(-CONSTANT_STEP))) / (2 * CONSTANT_STEP);
-    // the mixture's pH per mole of the titrant, stepped to move it by about PH_STEP
-    const stepMix = PH_STEP * Math.max(bufferCapacity(eq), 1e-9) * contents.volumeL;
-    const mixPerMole = perMolesOf((d) => pHOf(withReagent(contents, making.titrant, d), temperatureC, model, eq.lnH), eq.pH, stepMix, heldMoles(contents, making.titrant));
-    // per mol/L of the stock's titrant, the mixture moves by its litres of stock times that
-    const mixPerN = mixPerMole * litres;
-    const through = (stockSlope: number): number => (stockSlope === 0 ? 0 : mixPerN * (-stockSlope / perN));
-    const perPKa = p.systems.map((s) => {
-      const j = stockSystems.indexOf(s.system.id);
-      return s.system.steps.map((_, k) => (j < 0 ? 0 : through(stockPerConstant((d) => (q) => shiftConstants(q, q.systems.map((_, m) => (m === j ? Array.from(q.systems[m].lnKa, (_, n) => (n === k ? d : 0)) : [])), 0)))));
-    });
-    const perPKw = through(stockPerConstant((d) => (q) => shiftConstants(q, [], d)));
-    out.push({ row: r, name: row.reagent, making, perStatedPH: mixPerN / perN, perPKa, perPKw });
+    const use = uses.get(making);
+    if (use) { use.rows.push(r); use.litres += litres; } else uses.set(making, { rows: [r], rowNumber: row.row, name: row.reagent, making, litres });
   });
-  return out;
+  return [...uses.values()];
 }
 
-/** A stock's stated pH is met to this (pH) when it is re-made at another constant; the verifying solve is the one that meets it. */
-const REMADE_PH_TOLERANCE = 1e-10;
-
 /**
- * pH of the mixture with one step's 25 °C pKa replaced (CONSTANTS' alternative value), each pH-adjusted stock that holds
- * that system re-made at it: its titrant re-solved (secant on full solves of the stock) until the stock reads its stated
- * pH again, to 1e-10; then the mixture with those titrants and that constant, solved. Refused (no_convergence,
- * out_of_range) where a stock cannot be re-made with its own titrant.
- * @example pHWithStepPKaReadjusted(rows, contents, eq, 0, 0, 3.755) - eq.pH // formate at its alternative, the stock re-made
+ * The pH-adjusted stocks of a budget's mixture, each with its contribution to the constants' sensitivities and its
+ * stated pH's own. `contents`, `eq`: the mixture as read and its solution under `model` at `temperatureC`.
+ * @example readjustedStocks([{ reagent: '1 M Tris pH 8.0 with HCl', amount: 50, unit: 'mL', row: 1 }], contents, eq, 25, 'davies')[0].perPKa
+ *   // [[≈ −0.96]]: most of the Tris line's direct ≈ +1 is taken back by the stock's HCl following the pKa
  */
-export function pHWithStepPKaReadjusted(rows: MixtureRow[], contents: Contents, eq: Equilibrium, systemIndex: number, stepIndex: number, pKa25: number): number {
-  const p = eq.problem, id = p.systems[systemIndex].system.id;
-  let mixture = contents;
-  rows.forEach((row, r) => {
-    const making = parseReagentSpec(row.reagent, 'reagents', row.row).made?.adjusted;
-    const litres = contents.rows[r].moles;
-    if (!making || !(litres > 0)) return;
-    const stock = solve(prepareProblem(making.contents, making.temperatureC, making.model));
-    const j = stock.problem.systems.findIndex((s) => s.system.id === id);
-    if (j < 0) return;
-    mixture = withReagent(mixture, making.titrant, litres * remadeTitrant(making, stock, row, j, stepIndex, pKa25));
+export function readjustedStocks(rows: MixtureRow[], contents: Contents, eq: Equilibrium, temperatureC: number, model: ActivityModel,
+  perMoleOf?: (reagent: AdjustedMaking['titrant']) => number): ReadjustedStock[] {
+  const p = eq.problem;
+  return stockUses(rows, contents).map((use) => {
+    const stock = stockPartials(use.making);
+    // the mixture's pH per mole of the titrant: `perMoleOf` (the implicit derivatives, where the model has them), or
+    // stepped to move it by about PH_STEP; per mol/L of the stock's titrant, times its litres
+    const mix = (d: number): number => solve(prepareProblem(withReagent(contents, use.making.titrant, d), temperatureC, model), eq.lnH).pH;
+    const perMole = perMoleOf ? perMoleOf(use.making.titrant) : perMolesOf(mix, eq.pH, stepFor(bufferCapacity(eq), contents.volumeL), heldMoles(contents, use.making.titrant));
+    const mixPerN = perMole * use.litres;
+    const through = (stockSlope: number): number => (stockSlope === 0 ? 0 : mixPerN * (-stockSlope / stock.perN));
+    return {
+      ...use,
+      perStatedPH: mixPerN / stock.perN,
+      perPKa: p.systems.map((s) => s.system.steps.map((_, k) => through(stock.perPKa.get(s.system.id)?.[k] ?? 0))),
+      perPKw: through(stock.perPKw),
+    };
   });
-  const q = withStepPKa(prepareProblem(mixture, p.temperatureC, p.model), systemIndex, stepIndex, pKa25);
-  return solve(q, eq.lnH).pH;
 }
 
-/** Most secant steps a stock's re-making may take before it is refused. */
-const REMAKE_STEPS = 40;
-
 /**
- * The titrant (mol/L of stock) to add to a pH-adjusted stock so that it reads its stated pH again with step `stepIndex`
- * of its system `j` at 25 °C pKa `pKa25`: a secant on full solves of the stock, from the titrant as made and a small
- * step (the slope's sign is the titrant's: an acid lowers the pH). Returned only at a point whose solve meets the
- * stated pH to REMADE_PH_TOLERANCE; refused where the titrant would go below none, or where it does not settle.
+ * The titrant change, mol per litre of stock, that brings a stock whose problem is moved by `move` to its made pH plus
+ * `statedMove`, to `tolerance` (pH): from the change its partials predict, a Newton step on its slope, then secant
+ * steps, each a full solve of the stock. Returned only at a point whose solve meets the pH to the tolerance; refused
+ * (unreachable_target) where the stock's titrant would go below none, and (no_convergence) where it does not settle.
  */
-function remadeTitrant(making: AdjustedMaking, stock: Equilibrium, row: MixtureRow, j: number, stepIndex: number, pKa25: number): number {
-  const held = heldMoles(making.contents, making.titrant);
+function remadeTitrant(use: StockUse, move: ConstantMove | undefined, statedMove: number, tolerance: number): number {
+  const stock = stockPartials(use.making), key = `${JSON.stringify(move ?? null)} ${statedMove} ${tolerance}`;
+  const kept = stock.remade.get(key);
+  if (kept !== undefined) return kept;
+  const delta = solvedTitrant(use, stock, move, statedMove, tolerance);
+  if (stock.remade.size < 1000) stock.remade.set(key, delta);
+  return delta;
+}
+
+function solvedTitrant(use: StockUse, stock: StockPartials, move: ConstantMove | undefined, statedMove: number, tolerance: number): number {
+  const making = use.making, target = stock.madePH + statedMove;
   const offBy = (delta: number): number => {
-    if (held + delta < 0) fail({ code: 'out_of_range', argument: 'reagents', row: row.row, received: `${row.reagent} at pKa ${pKa25}`, expected: 'a stock its own titrant can bring to its stated pH at this constant' });
-    const q = withStepPKa(prepareProblem(delta === 0 ? making.contents : withReagent(making.contents, making.titrant, delta), making.temperatureC, making.model), j, stepIndex, pKa25);
-    return solve(q, stock.lnH).pH - making.statedPH;
+    if (making.titrantMPerL + delta < 0) {
+      fail({ code: 'unreachable_target', argument: 'reagents', row: use.rowNumber, received: `${use.name} re-made at pH ${target.toFixed(4)}${move ? ' with the constant moved' : ''}`,
+        reason: `its titrant would have to go below none (it took ${Number(making.titrantMPerL.toPrecision(4))} mol/L)`, expected: 'a stock its own titrant can bring to that pH' });
+    }
+    return stockPH(making, delta, move, stock.lnH) - target;
   };
-  let d0 = PH_STEP * Math.max(bufferCapacity(stock), 1e-9), f0 = offBy(d0);
-  const atMade = offBy(0);
-  let d1 = -atMade * (d0 / (f0 - atMade)), f1 = offBy(d1);
+  // the stock's pH off its target before any change, to first order from its partials
+  const predicted = predictedMove(stock, move) - statedMove;
+  let d0 = predicted === 0 ? 0 : -predicted / stock.perN, f0 = offBy(d0);
+  if (Math.abs(f0) <= tolerance) return d0;
+  let d1 = d0 - f0 / stock.perN, f1 = offBy(d1);
   for (let iter = 0; iter < REMAKE_STEPS; iter++) {
-    if (Math.abs(f1) <= REMADE_PH_TOLERANCE) return d1;
+    if (Math.abs(f1) <= tolerance) return d1;
     if (f1 === f0) break;
     const d2 = d1 - (f1 * (d1 - d0)) / (f1 - f0);
     d0 = d1; f0 = f1;
     d1 = d2; f1 = offBy(d1);
   }
-  return fail({ code: 'no_convergence', argument: 'reagents', row: row.row, received: `${row.reagent} re-made at pKa ${pKa25}: still ${f1.toExponential(2)} pH from its stated pH`, expected: 'a stock whose re-adjustment settles; please report this case' });
+  return fail({ code: 'no_convergence', argument: 'reagents', row: use.rowNumber, received: `${use.name} re-made: still ${f1.toExponential(2)} pH from ${target.toFixed(4)}`, expected: 'a stock whose re-adjustment settles; please report this case' });
+}
+
+/** The stock's pH move, to first order, that `move` causes with its titrant as made. */
+function predictedMove(stock: StockPartials, move: ConstantMove | undefined): number {
+  if (move === undefined) return 0;
+  if ('pKwShift' in move) return stock.perPKw * move.pKwShift;
+  const slope = stock.perPKa.get(move.systemId)?.[move.step] ?? 0;
+  if ('pKaShift' in move) return slope * move.pKaShift;
+  const pKa25 = stock.pKa25.get(move.systemId)?.[move.step];
+  return pKa25 === undefined ? 0 : slope * (move.pKa25 - pKa25);
+}
+
+/**
+ * The mixture's contents with each stock re-made for `move` (a constant moved) and `statedMove` (its stated pH moved):
+ * its titrant re-solved to `tolerance` (pH), and the mixture given the stock's litres times the change. Stocks neither
+ * touches are as read.
+ * @example withRemadeStocks(contents, stocks, { systemId: 'tris', step: 0, pKaShift: 0.02 }, () => 0) // Tris stocks re-made at pKa + 0.02
+ */
+export function withRemadeStocks(contents: Contents, stocks: StockUse[], move: ConstantMove | undefined, statedMove: (use: StockUse) => number,
+  tolerance = REMADE_PH_TOLERANCE): Contents {
+  let out = contents;
+  for (const use of stocks) {
+    const stated = statedMove(use);
+    if (!touches(use.making, move) && stated === 0) continue;
+    out = withReagent(out, use.making.titrant, use.litres * remadeTitrant(use, move, stated, tolerance));
+  }
+  return out;
+}
+
+/**
+ * pH of the mixture with one step's 25 °C pKa replaced (CONSTANTS' alternative value), each pH-adjusted stock that holds
+ * that system re-made at it; a stock its own titrant cannot re-make there is refused (unreachable_target).
+ * @example pHWithStepPKaReadjusted(rows, contents, eq, 0, 0, 3.755) - eq.pH // formate at its alternative, the stock re-made
+ */
+export function pHWithStepPKaReadjusted(rows: MixtureRow[], contents: Contents, eq: Equilibrium, systemIndex: number, stepIndex: number, pKa25: number): number {
+  const p = eq.problem;
+  const move: ConstantMove = { systemId: p.systems[systemIndex].system.id, step: stepIndex, pKa25 };
+  const remade = withRemadeStocks(contents, stockUses(rows, contents), move, () => 0);
+  return solve(applyMove(prepareProblem(remade, p.temperatureC, p.model), move), eq.lnH).pH;
 }

@@ -169,7 +169,6 @@ function lnWaterSlope(p: Problem, contents: Contents, deltaPerUnit: number[], h:
  * reagent per unit of its amount (a row's moles are proportional to its amount), so a row at 0 has its slope too.
  */
 export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, molesPerUnit: number[]): number[] {
-  const p = sens.eq.problem;
   const perLnWater = sens.perLnWaterDensity();
   return contents.rows.map((row, r) => {
     const perUnit = molesPerUnit[r];
@@ -177,18 +176,38 @@ export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, 
     const along = contents.rows.map((_, k) => (k === r ? perUnit / contents.volumeL : 0));
     // the density formula's slope by a difference of ± 1e-4 of the row's amount, or at amount 0 forward by 1 µmol/L of it
     // (the formula has kinks where its protons change hands, within a few mmol/L of a row at 0; it has no solve noise)
+    const p = sens.eq.problem;
     const viaDensity = perLnWater * (row.moles > 0 ? lnWaterSlope(p, contents, along, (1e-4 * row.moles) / perUnit) : lnWaterSlope(p, contents, along, (1e-6 * contents.volumeL) / perUnit, true));
-    let perMole = 0; // dpH per mole of reagent formula units, in the final volume
-    for (const s of row.reagent.systems) {
-      const i = p.systems.findIndex((x) => x.system.id === s.systemId);
-      if (i >= 0) perMole += (s.count / contents.volumeL) * sens.perSystemM(i);
-    }
-    for (const ion of row.reagent.ions) {
-      const found = p.ions.find((x) => x.id === ion.ionId);
-      if (found) perMole += (ion.count / contents.volumeL) * sens.perIonM(found.charge);
-    }
-    return perMole * perUnit + viaDensity;
+    return releasedSensitivity(sens, contents, row.reagent) * perUnit + viaDensity;
   });
+}
+
+/**
+ * dpH per mole of `reagent` added to the mixture (in its final volume), the density's share included: as a row of it
+ * at amount 0 (rowAmountSensitivities' forward density step of 1 µmol/L).
+ * @example reagentSensitivity(new PHSensitivity(eq), contents, hcl) // dpH per mol of HCl more
+ */
+export function reagentSensitivity(sens: PHSensitivity, contents: Contents, reagent: Contents['rows'][number]['reagent']): number {
+  const rows = [...contents.rows, { row: 0, text: '', reagent, moles: 0, volumeL: 0 }];
+  return rowAmountSensitivities(sens, { ...contents, rows }, rows.map((_, k) => (k === rows.length - 1 ? 1 : 0)))[rows.length - 1];
+}
+
+/**
+ * dpH per mole of a reagent's formula units in the final volume, through what it releases (its systems and ions),
+ * at fixed density (rowAmountSensitivities adds the density's share).
+ */
+function releasedSensitivity(sens: PHSensitivity, contents: Contents, reagent: Contents['rows'][number]['reagent']): number {
+  const p = sens.eq.problem;
+  let perMole = 0;
+  for (const s of reagent.systems) {
+    const i = p.systems.findIndex((x) => x.system.id === s.systemId);
+    if (i >= 0) perMole += (s.count / contents.volumeL) * sens.perSystemM(i);
+  }
+  for (const ion of reagent.ions) {
+    const found = p.ions.find((x) => x.id === ion.ionId);
+    if (found) perMole += (ion.count / contents.volumeL) * sens.perIonM(found.charge);
+  }
+  return perMole;
 }
 
 /** dpH per litre of final volume: every row not given as a concentration dilutes as the volume grows (its solutes, and their share of the density). */

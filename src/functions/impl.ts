@@ -61,6 +61,15 @@ export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: C
   const withStocks = read.rows.some((r) => parseReagentSpec(r.reagent, 'reagents', r.row).made?.adjusted !== undefined);
   const alternativePH = (i: number, k: number, pKa25: number): number => (withStocks
     ? pHWithStepPKaReadjusted(read.rows, contentsOf(read.rows, read.volumeL), eq, i, k, pKa25) : pHWithStepPKa(p, i, k, pKa25));
+  // one alternative whose stock cannot be re-made is that cell's note, not the table's failure
+  const alternativeShift = (i: number, k: number, pKa25: number): CellScalar => {
+    try {
+      return finite(alternativePH(i, k, pKa25) - eq.pH, 'pH shift');
+    } catch (e) {
+      if (withStocks && e instanceof ProticError) return `not computed: ${e.message}`;
+      throw e;
+    }
+  };
   p.systems.forEach((s, i) => {
     const alpha = fractionsAt(s.lnCumK, eq.lnH);
     s.system.steps.forEach((step, k) => {
@@ -72,7 +81,7 @@ export function constants(reagents: Cell, amounts: Cell, units: Cell, volume?: C
         step.provenance.dCp && `ΔrCp° ${levelLabel(step.provenance.dCp)}`].filter(Boolean).join('; ');
       const alt = step.alternative;
       // the other published value, re-solved: how much the choice between the two moves this mixture's pH
-      const altShift = alt ? finite(alternativePH(i, k, alt.pKa) - eq.pH, 'pH shift') : '';
+      const altShift = alt ? alternativeShift(i, k, alt.pKa) : '';
       table.push([`pKa ${s.system.name}`, k + 1, finite(pKaAt(step, m.temperatureC), 'pKa'), apparent, step.source,
         step.dHkJPerMol ?? '', step.dCpJPerKMol ?? '', `${range[0]}–${range[1]}`, level,
         alt ? alt.pKa : '', altShift]);

@@ -51,7 +51,8 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   // the first-order budget holds only where the pH is close to linear over each ± limit (JCGM 101 is the check where not):
   // each amount and the volume are solved at the ends of their limits, and a line that departs by more than 10 % says so.
   // The pKa (± 0.02), pKw (± 0.01) and temperature lines are not: the pH's slope in them follows the speciation, which
-  // moves by a few hundredths of a pH unit over such limits, so they stay within a few % of first order.
+  // moves by a few hundredths of a pH unit over such limits, so they stay within a few % of first order; except where a
+  // stock written with a pH is re-made as the constant moves, and for that stated pH itself: those move a titrant.
   const nonlinear: string[] = [];
   const addNote = (l: BudgetLine, note: string): void => { l.note = [l.note, note].filter(Boolean).join('; '); };
   const checkLinearity = (l: BudgetLine, key: BudgetInput, lowest: number, name: string): void => {
@@ -78,11 +79,14 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
     note: sided('temperature', 'through each pKa (its ΔrH°, ΔrCp°), pKw, the Debye–Hückel A and the kg of water per litre (the solution density)') });
   // a stock written with a pH is at that pH (brought there on a meter): the pH as stated is an input, and the constants'
   // lines move its titrant with them (budgetSensitivities' stocks)
-  for (const stock of sens.stocks) {
+  sens.stocks.forEach((stock, index) => {
     const limit = Math.max(stock.making.statedHalfDigit, STATED_PH_METER_HALF_WIDTH);
-    lines.push({ input: `stated pH: ${stock.name}`, value: stock.making.statedPH, unit: 'pH', limit, distribution: 'rectangular', u: limit / RECT, sensitivity: stock.perStatedPH,
-      note: `the stock is taken to be at the pH it is written with, its titrant re-solved to it; ± the larger of half its last written digit and ${STATED_PH_METER_HALF_WIDTH} (a meter calibrated at two points, common practice)` });
-  }
+    const rowsNote = stock.rows.length > 1 ? `; rows ${stock.rows.map((r) => rows[r].row).join(', ')} draw on this one stock: one input` : '';
+    const line: BudgetLine = { input: `stated pH: ${stock.name}`, value: stock.making.statedPH, unit: 'pH', limit, distribution: 'rectangular', u: limit / RECT, sensitivity: stock.perStatedPH,
+      note: `the stock is taken to be at the pH it is written with, its titrant re-solved to it; ± the larger of half its last written digit and ${STATED_PH_METER_HALF_WIDTH} (a meter calibrated at two points; common practice, from memory)${rowsNote}` };
+    lines.push(line);
+    checkLinearity(line, { stock: index }, -Infinity, line.input);
+  });
   const readjusted = (pick: (s: (typeof sens.stocks)[number]) => number): string => {
     const names = sens.stocks.filter((s) => pick(s) !== 0).map((s) => s.name);
     return names.length === 0 ? '' : `with ${names.join(', ')} re-adjusted to ${names.length === 1 ? 'its' : 'their'} stated pH as it moves`;
@@ -94,14 +98,20 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
       const stated = step.provenance.pKa.pKaPlusMinus;
       const input = `pKa ${s.system.name} ${k + 1}`, sensitivity = sens.perPKa[i][k], key = { system: i, step: k };
       const also = readjusted((x) => x.perPKa[i][k]);
-      lines.push(stated !== undefined
+      const line: BudgetLine = stated !== undefined
         ? { input, value: step.pKa, unit: '', limit: stated, distribution: 'normal (stated ± as u)', u: stated, sensitivity, note: sided(key, [`stated in ${step.provenance.pKa.source}`, also].filter(Boolean).join('; ')) }
         : { input, value: step.pKa, unit: '', limit: ASSUMED_PKA_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKA_HALF_WIDTH / RECT, sensitivity,
-          note: sided(key, [`no uncertainty from the source (${step.provenance.pKa.level}): ±${ASSUMED_PKA_HALF_WIDTH} assumed`, also].filter(Boolean).join('; ')) });
+          note: sided(key, [`no uncertainty from the source (${step.provenance.pKa.level}): ±${ASSUMED_PKA_HALF_WIDTH} assumed`, also].filter(Boolean).join('; ')) };
+      lines.push(line);
+      // a re-made stock's titrant follows the constant like an amount: near an equivalence point that is far from linear
+      if (also) checkLinearity(line, key, -Infinity, line.input);
     });
   });
-  lines.push({ input: 'pKw', value: p.lnKw / -Math.LN10, unit: '', limit: ASSUMED_PKW_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKW_HALF_WIDTH / RECT, sensitivity: sens.perPKw,
-    note: sided('pKw', [`no uncertainty read from IAPWS R11-07: ±${ASSUMED_PKW_HALF_WIDTH} assumed`, readjusted((x) => x.perPKw)].filter(Boolean).join('; ')) });
+  const alsoPKw = readjusted((x) => x.perPKw);
+  const pKwLine: BudgetLine = { input: 'pKw', value: p.lnKw / -Math.LN10, unit: '', limit: ASSUMED_PKW_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKW_HALF_WIDTH / RECT, sensitivity: sens.perPKw,
+    note: sided('pKw', [`no uncertainty read from IAPWS R11-07: ±${ASSUMED_PKW_HALF_WIDTH} assumed`, alsoPKw].filter(Boolean).join('; ')) };
+  lines.push(pKwLine);
+  if (alsoPKw) checkLinearity(pKwLine, 'pKw', -Infinity, pKwLine.input);
   const combined = Math.sqrt(lines.reduce((sum, l) => sum + (l.sensitivity * l.u) ** 2, 0));
   return { pH: sens.eq.pH, lines, combined, method: sens.method, nonlinear };
 }
