@@ -122,6 +122,30 @@ describe('catalogue stocks, against the catalogue constant moved in place (± 0.
     expect(Math.abs(split.combined - one.combined)).toBeLessThan(1e-9);
   });
 
+  test('the same stock spelled two ways is still one bottle, one input', () => {
+    const two = uncertaintyBudget([['1 M Tris-HCl pH 8.0'], ['1M Tris-HCl pH 8.0'], ['NaCl']], [[20], [30], [8.77]], [['mL'], ['mL'], ['g']], 1, 25, 'davies');
+    const one = uncertaintyBudget([['1 M Tris-HCl pH 8.0'], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1, 25, 'davies');
+    expect(two.lines.filter((l) => l.input.startsWith('stated pH:'))).toHaveLength(1);
+    expect(Math.abs(two.combined - one.combined)).toBeLessThan(1e-9);
+  });
+
+  test('the temperature the stock\'s pH was set at is a line of its own: its sensitivity is the stock re-made at ± 0.05 °C', () => {
+    const at = (t: string): number => impl.ph([[`1 M Tris-HCl pH 8.0 at ${t} °C`], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1, 25, 'davies') as number;
+    const line = uncertaintyBudget([['1 M Tris-HCl pH 8.0'], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1, 25, 'davies').lines.find((l) => l.input.startsWith('adjustment temperature:'));
+    const independent = (at('25.05') - at('24.95')) / 0.1;
+    // about +0.027 pH/K: Tris's pKa falls as it warms, so a stock set warmer took less HCl to read 8.0, and reads higher at 25 °C
+    expect(independent).toBeGreaterThan(0.02);
+    expect(Math.abs((line?.sensitivity ?? NaN) - independent)).toBeLessThan(1e-5);
+    expect([line?.value, line?.limit]).toEqual([25, 0]);
+    expect(line?.note).toMatch(/none written.*± 1 °C would add 0\.01\d pH in u/);
+  });
+
+  test('a stock its titrant cannot take below its natural pH: the stated pH\'s lower end is refused, and the line says only the upper end is checked', () => {
+    // 1 M acetic acid reads about 2.37 alone: at pH 2.4 − 0.05 it would need less than no NaOH
+    const b = uncertaintyBudget([['1 M acetic acid pH 2.4 with NaOH'], ['NaCl']], [[100], [5]], [['mL'], ['g']], 1, 25, 'davies');
+    expect(b.lines.find((l) => l.input.startsWith('stated pH:'))?.note).toMatch(/one end of the ± limit is refused, so only the other is checked \(even with none of its titrant it reads 2\.3/);
+  });
+
   test('at an equivalence point the stock\'s stated pH and the pKa it follows are flagged as not linear, and so is u(pH)', () => {
     // 100 mL of an acetate stock at pH 4.76 and the NaOH that brings the whole to equivalence: ± 0.02 in the stock's pH
     // moves the mixture by about ± 2, first order says ± 31
@@ -151,7 +175,14 @@ describe('CONSTANTS: the alternative\'s shift with the stock re-made, against th
     // formic acid barely brought up with NaOH: at the alternative (a weaker acid) it would need less than none
     const table = impl.constants([['1 M formic acid pH 1.8708 with NaOH']], [[1]], [['L']], 1, 25, 'davies');
     const row = table.find((r) => r[0] === 'pKa formate');
-    expect(row?.[10]).toMatch(/^not computed: .*its titrant would have to go below none/);
+    expect(row?.[10]).toMatch(/^not computed: .*even with none of its titrant it reads 1\.872/);
     expect(table.some((r) => r[0] === 'pKw')).toBe(true);
+  });
+
+  test('a stock just inside what its titrant can reach at the alternative is re-made, not refused (a secant step below none is taken to none)', () => {
+    // the alternative's own formic acid reads 1.87229 with no NaOH: a stock at 1.87230 takes a trace of it
+    const stock = '1 M formic acid pH 1.87230 with NaOH';
+    const table = impl.constants([[stock]], [[1]], [['L']], 1, 25, 'davies');
+    expect(Math.abs(table.find((r) => r[0] === 'pKa formate')?.[10] as number)).toBeLessThan(1e-9);
   });
 });

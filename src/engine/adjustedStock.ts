@@ -26,6 +26,8 @@ export interface AdjustedStockText {
   /** the titrant as written, or undefined to choose HCl or NaOH by the side of the target */
   titrantText?: string;
   temperatureC: number;
+  /** whether the text says the temperature (`at 37 °C`), or 25 °C was taken */
+  temperatureWritten: boolean;
   /** the activity model the stock is adjusted under: what is in the bottle does not change with a later cell's model */
   model: ActivityModel;
 }
@@ -60,7 +62,7 @@ export function parseAdjustedStock(text: string): AdjustedStockText | undefined 
   }
   return {
     concentrationM: num(m[1]) * unit.toBase, reagentText, targetPH: num(m[4]), targetPHDecimals: decimalsOf(m[4]), titrantText,
-    temperatureC: m[6] === undefined ? 25 : num(m[6]), model: m[7] === undefined ? 'davies' : parseModel(m[7], 'reagents'),
+    temperatureC: m[6] === undefined ? 25 : num(m[6]), temperatureWritten: m[6] !== undefined, model: m[7] === undefined ? 'davies' : parseModel(m[7], 'reagents'),
   };
 }
 
@@ -99,7 +101,8 @@ export function adjustedStockComposition(s: AdjustedStockText, text: string, arg
     systemsMPerL: contents.systemMoles,
     ionsMPerL: contents.ionMoles,
     warning: modelWarning(made) === '' ? undefined : `the stock ${name} itself, as adjusted at ${s.temperatureC} °C: ${modelWarning(made)}`,
-    adjusted: { statedPH: s.targetPH, statedHalfDigit: 0.5 * 10 ** -s.targetPHDecimals, contents, titrant: titrant.resolved.reagent, titrantMPerL: result.moles,
-      temperatureC: s.temperatureC, model },
+    adjusted: { identity: [reagent.reagent.id, s.concentrationM, s.targetPH, titrant.resolved.reagent.id, s.temperatureC, model].join('|'),
+      statedPH: s.targetPH, statedHalfDigit: 0.5 * 10 ** -s.targetPHDecimals, contents, titrant: titrant.resolved.reagent, titrantMPerL: result.moles,
+      temperatureC: s.temperatureC, temperatureWritten: s.temperatureWritten, model },
   };
 }

@@ -118,7 +118,7 @@ function withReadjustedStocks(sens: BudgetSensitivities): BudgetSensitivities {
   if (sens.stocks.length === 0) return sens;
   const perPKa = sens.perPKa.map((steps, i) => steps.map((direct, k) => sens.stocks.reduce((sum, s) => sum + s.perPKa[i][k], direct)));
   const perPKw = sens.stocks.reduce((sum, s) => sum + s.perPKw, sens.perPKw);
-  return { ...sens, perPKa, perPKw, method: `${sens.method}; each stock written with a pH re-adjusted to it as a constant moves (its titrant re-solved, central differences of full solves)` };
+  return { ...sens, perPKa, perPKw, method: `${sens.method}; each stock written with a pH re-adjusted to it as a constant moves (its titrant by the stock's own slopes, central differences of its full solves; the first-order checks re-make it)` };
 }
 
 /**
@@ -233,11 +233,13 @@ export const NEGLIGIBLE_MOVE_PH = 1e-4;
  * undefined when no end can be solved.
  * @example linearityDeparture(sens, { row: 1 }, 0.05, sens.perAmount[1], -3.55) // 0.002: linear over ± 0.05 of row 2's 3.55
  */
-export function linearityDeparture(sens: BudgetSensitivities, input: BudgetInput, half: number, sensitivity: number, lowest = -Infinity): number | undefined {
+export function linearityDeparture(sens: BudgetSensitivities, input: BudgetInput, half: number, sensitivity: number, lowest = -Infinity,
+  refused: ProticError[] = []): number | undefined {
   const linear = sensitivity * half;
   if (!(Math.abs(linear) >= NEGLIGIBLE_MOVE_PH)) return 0;
+  // an end the data or the mixture refuse is left out, and handed back in `refused` so the line can say so
   const side = (d: number): number | undefined => {
-    try { return (sens.pHWith(input, d) - sens.eq.pH) / (d > 0 ? linear : -linear); } catch (e) { if (e instanceof ProticError) return undefined; throw e; }
+    try { return (sens.pHWith(input, d) - sens.eq.pH) / (d > 0 ? linear : -linear); } catch (e) { if (e instanceof ProticError) { refused.push(e); return undefined; } throw e; }
   };
   const ratios = [side(half), lowest <= -half ? side(-half) : undefined].filter((x): x is number => x !== undefined && Number.isFinite(x));
   return ratios.length === 0 ? undefined : Math.max(...ratios.map((x) => Math.abs(x - 1)));

@@ -30,6 +30,8 @@ export interface StockComposition {
 
 /** How a pH-adjusted stock was made: one litre of it, the titrant that set its pH, and the conditions of the adjustment. */
 export interface AdjustedMaking {
+  /** what the stock is, however its text was spelled: reagent, concentration, stated pH, titrant, temperature, model */
+  identity: string;
   statedPH: number;
   /** half a unit of the last digit the stated pH was written to (pH 8.0: 0.05) */
   statedHalfDigit: number;
@@ -38,7 +40,9 @@ export interface AdjustedMaking {
   titrant: Reagent;
   /** the titrant the adjustment took, mol per litre of stock */
   titrantMPerL: number;
+  /** the temperature its pH was set at, °C, and whether its text says so (else 25 °C was taken) */
   temperatureC: number;
+  temperatureWritten: boolean;
   model: ActivityModel;
 }
 

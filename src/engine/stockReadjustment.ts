@@ -1,6 +1,6 @@
 import type { ActivityModel } from './activity';
 import { withStepPKa } from './alternative';
-import { fail } from './failure';
+import { ProticError, fail } from './failure';
 import { addReagent, cloneContents, parseReagentSpec } from './mixture';
 import type { Contents, MixtureRow } from './mixture';
 import type { Problem } from './problem';
@@ -55,6 +55,8 @@ export interface ReadjustedStock extends StockUse {
   perPKa: number[][];
   /** the same per unit of pKw */
   perPKw: number;
+  /** dpH of the mixture per kelvin of the temperature the stock's pH was set at (its titrant re-solved to it there) */
+  perAdjustmentKelvin: number;
 }
 
 /** The stock's own solve and partials, which depend on nothing in the mixture: worked out once per stock. */
@@ -70,6 +72,8 @@ interface StockPartials {
   /** re-made titrants already solved, by move (they depend on the stock alone: a table of mixtures drawing on it reuses them) */
   remade: Map<string, number>;
   perPKw: number;
+  /** dpH_stock per kelvin at its own composition */
+  perKelvin: number;
 }
 const partialsOf = new WeakMap<AdjustedMaking, StockPartials>();
 
@@ -113,10 +117,16 @@ function stepFor(beta: number, litres: number): number {
   return PH_STEP * (Number.isFinite(beta) && beta > 1e-9 ? beta : 1e-9) * litres;
 }
 
-/** The stock's pH with its titrant moved by `delta` mol/L and its problem moved by `move`. */
-function stockPH(making: AdjustedMaking, delta: number, move: ConstantMove | undefined, lnHStart?: number): number {
+/** The stock's pH with its titrant moved by `delta` mol/L, its problem moved by `move`, at its temperature plus `kelvin`. */
+function stockPH(making: AdjustedMaking, delta: number, move: ConstantMove | undefined, lnHStart?: number, kelvin = 0): number {
   const c = delta === 0 ? making.contents : withReagent(making.contents, making.titrant, delta);
-  return solve(applyMove(prepareProblem(c, making.temperatureC, making.model), move), lnHStart).pH;
+  return solve(applyMove(prepareProblem(c, making.temperatureC + kelvin, making.model), move), lnHStart).pH;
+}
+/** Temperature step of the stock's own slope, °C. */
+const TEMPERATURE_STEP_C = 0.01;
+
+function stockPHOrUndefined(making: AdjustedMaking, lnH: number, kelvin: number): number | undefined {
+  try { return stockPH(making, 0, undefined, lnH, kelvin); } catch (e) { if (e instanceof ProticError && e.failure.code === 'out_of_range') return undefined; throw e; }
 }
 
 function stockPartials(making: AdjustedMaking): StockPartials {
@@ -128,20 +138,27 @@ function stockPartials(making: AdjustedMaking): StockPartials {
   const perConstant = (move: (d: number) => ConstantMove): number => (at(0, move(CONSTANT_STEP)) - at(0, move(-CONSTANT_STEP))) / (2 * CONSTANT_STEP);
   const perPKa = new Map(made.problem.systems.map((s) => [s.system.id, s.system.steps.map((_, step) => perConstant((d) => ({ systemId: s.system.id, step, pKaShift: d })))]));
   const pKa25 = new Map(made.problem.systems.map((s) => [s.system.id, s.system.steps.map((step) => step.pKa)]));
-  const partials = { madePH: made.pH, lnH: made.lnH, perN, perPKa, pKa25, perPKw: perConstant((d) => ({ pKwShift: d })), remade: new Map<string, number>() };
+  // where a step is outside the data's temperature range, the other side alone
+  const hot = stockPHOrUndefined(making, made.lnH, TEMPERATURE_STEP_C), cold = stockPHOrUndefined(making, made.lnH, -TEMPERATURE_STEP_C);
+  const perKelvin = hot !== undefined && cold !== undefined ? (hot - cold) / (2 * TEMPERATURE_STEP_C)
+    : hot !== undefined ? (hot - made.pH) / TEMPERATURE_STEP_C : cold !== undefined ? (made.pH - cold) / TEMPERATURE_STEP_C : 0;
+  const partials = { madePH: made.pH, lnH: made.lnH, perN, perPKa, pKa25, perPKw: perConstant((d) => ({ pKwShift: d })), perKelvin, remade: new Map<string, number>() };
   partialsOf.set(making, partials);
   return partials;
 }
 
-/** The pH-adjusted stocks a mixture draws on, each bottle once (two rows of one stock text are one bottle). */
+/**
+ * The pH-adjusted stocks a mixture draws on, each bottle once: rows whose stocks are the same (reagent, concentration,
+ * stated pH, titrant, temperature and model, however spelled) are one bottle, one input.
+ */
 export function stockUses(rows: MixtureRow[], contents: Contents): StockUse[] {
-  const uses = new Map<AdjustedMaking, StockUse>();
+  const uses = new Map<string, StockUse>();
   rows.forEach((row, r) => {
     const making = parseReagentSpec(row.reagent, 'reagents', row.row).made?.adjusted;
     const litres = contents.rows[r].moles; // a made solution's reagent is one litre of it
     if (!making || !(litres > 0)) return;
-    const use = uses.get(making);
-    if (use) { use.rows.push(r); use.litres += litres; } else uses.set(making, { rows: [r], rowNumber: row.row, name: row.reagent, making, litres });
+    const use = uses.get(making.identity);
+    if (use) { use.rows.push(r); use.litres += litres; } else uses.set(making.identity, { rows: [r], rowNumber: row.row, name: row.reagent, making, litres });
   });
   return [...uses.values()];
 }
@@ -168,6 +185,7 @@ export function readjustedStocks(rows: MixtureRow[], contents: Contents, eq: Equ
       perStatedPH: mixPerN / stock.perN,
       perPKa: p.systems.map((s) => s.system.steps.map((_, k) => through(stock.perPKa.get(s.system.id)?.[k] ?? 0))),
       perPKw: through(stock.perPKw),
+      perAdjustmentKelvin: through(stock.perKelvin),
     };
   });
 }
@@ -189,24 +207,32 @@ function remadeTitrant(use: StockUse, move: ConstantMove | undefined, statedMove
 
 function solvedTitrant(use: StockUse, stock: StockPartials, move: ConstantMove | undefined, statedMove: number, tolerance: number): number {
   const making = use.making, target = stock.madePH + statedMove;
-  const offBy = (delta: number): number => {
-    if (making.titrantMPerL + delta < 0) {
-      fail({ code: 'unreachable_target', argument: 'reagents', row: use.rowNumber, received: `${use.name} re-made at pH ${target.toFixed(4)}${move ? ' with the constant moved' : ''}`,
-        reason: `its titrant would have to go below none (it took ${Number(making.titrantMPerL.toPrecision(4))} mol/L)`, expected: 'a stock its own titrant can bring to that pH' });
-    }
-    return stockPH(making, delta, move, stock.lnH) - target;
+  // none of the titrant at all is the floor: below it the stock is not made with its own titrant
+  const floor = -making.titrantMPerL;
+  const offBy = (delta: number): number => stockPH(making, Math.max(delta, floor), move, stock.lnH) - target;
+  const unreachable = (): never => fail({ code: 'unreachable_target', argument: 'reagents', row: use.rowNumber,
+    received: `${use.name} re-made at pH ${target.toFixed(4)}${move ? ' with the constant moved' : ''}`,
+    reason: `even with none of its titrant it reads ${(offBy(floor) + target).toFixed(4)} (it took ${Number(making.titrantMPerL.toPrecision(4))} mol/L)`,
+    expected: 'a stock its own titrant can bring to that pH' });
+  // the pH is monotonic in the titrant: a step to below none is taken to none, and where the pH there is still on the
+  // same side of the target as at the last point, the target lies beyond it
+  const clamped = (delta: number, fLast: number): [number, number] => {
+    if (delta >= floor) return [delta, offBy(delta)];
+    const f = offBy(floor);
+    if (Math.abs(f) > tolerance && Math.sign(f) === Math.sign(fLast)) unreachable();
+    return [floor, f];
   };
   // the stock's pH off its target before any change, to first order from its partials
   const predicted = predictedMove(stock, move) - statedMove;
-  let d0 = predicted === 0 ? 0 : -predicted / stock.perN, f0 = offBy(d0);
+  let [d0, f0] = clamped(predicted === 0 ? 0 : -predicted / stock.perN, predicted);
   if (Math.abs(f0) <= tolerance) return d0;
-  let d1 = d0 - f0 / stock.perN, f1 = offBy(d1);
+  let [d1, f1] = clamped(d0 - f0 / stock.perN, f0);
   for (let iter = 0; iter < REMAKE_STEPS; iter++) {
     if (Math.abs(f1) <= tolerance) return d1;
     if (f1 === f0) break;
-    const d2 = d1 - (f1 * (d1 - d0)) / (f1 - f0);
+    const [d2, f2] = clamped(d1 - (f1 * (d1 - d0)) / (f1 - f0), f1);
     d0 = d1; f0 = f1;
-    d1 = d2; f1 = offBy(d1);
+    d1 = d2; f1 = f2;
   }
   return fail({ code: 'no_convergence', argument: 'reagents', row: use.rowNumber, received: `${use.name} re-made: still ${f1.toExponential(2)} pH from ${target.toFixed(4)}`, expected: 'a stock whose re-adjustment settles; please report this case' });
 }

@@ -1,4 +1,4 @@
-import { LINEARITY_LIMIT, budgetSensitivities, fail, linearityDeparture, parseModel, sameInput } from '../engine';
+import { LINEARITY_LIMIT, ProticError, budgetSensitivities, fail, linearityDeparture, parseModel, sameInput } from '../engine';
 import type { BudgetInput } from '../engine';
 import { TEMPERATURE_RULE, VOLUME_RULE, isBlank, mixtureRows, optionalNumber, requiredNumber, toMatrix } from './args';
 import type { Cell } from './args';
@@ -58,7 +58,9 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   const checkLinearity = (l: BudgetLine, key: BudgetInput, lowest: number, name: string): void => {
     if (!(l.limit > 0)) return;
     if (l.limit > -lowest) addNote(l, 'the ± limit is larger than the amount: below 0 is no mixture, so only the upper end is checked');
-    const departure = linearityDeparture(sens, key, l.limit, l.sensitivity, lowest);
+    const refused: ProticError[] = [];
+    const departure = linearityDeparture(sens, key, l.limit, l.sensitivity, lowest, refused);
+    if (departure !== undefined && refused.length > 0) addNote(l, `one end of the ± limit is refused, so only the other is checked (${'reason' in refused[0].failure ? refused[0].failure.reason : refused[0].message})`);
     if (departure !== undefined && departure <= LINEARITY_LIMIT) return;
     nonlinear.push(name);
     addNote(l, departure === undefined
@@ -80,15 +82,23 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   // a stock written with a pH is at that pH (brought there on a meter): the pH as stated is an input, and the constants'
   // lines move its titrant with them (budgetSensitivities' stocks)
   sens.stocks.forEach((stock, index) => {
-    const limit = Math.max(stock.making.statedHalfDigit, STATED_PH_METER_HALF_WIDTH);
+    const half = stock.making.statedHalfDigit, limit = Math.max(half, STATED_PH_METER_HALF_WIDTH);
+    const rule = half >= STATED_PH_METER_HALF_WIDTH
+      ? `± ${half}, half the last digit it is written with`
+      : `± ${STATED_PH_METER_HALF_WIDTH}, a meter calibrated at two points (common practice; recalled, not checked), more than half its last written digit`;
     const rowsNote = stock.rows.length > 1 ? `; rows ${stock.rows.map((r) => rows[r].row).join(', ')} draw on this one stock: one input` : '';
     const line: BudgetLine = { input: `stated pH: ${stock.name}`, value: stock.making.statedPH, unit: 'pH', limit, distribution: 'rectangular', u: limit / RECT, sensitivity: stock.perStatedPH,
-      note: `the stock is taken to be at the pH it is written with, its titrant re-solved to it; ± the larger of half its last written digit and ${STATED_PH_METER_HALF_WIDTH} (a meter calibrated at two points; common practice, from memory)${rowsNote}` };
+      note: `the stock is taken to be at the pH it is written with, its titrant following it; ${rule}${rowsNote}` };
     lines.push(line);
     checkLinearity(line, { stock: index }, -Infinity, line.input);
+    // the temperature its pH was set at: a stock set at another temperature holds another titrant
+    const t = stock.making.temperatureC, perK = stock.perAdjustmentKelvin;
+    lines.push({ input: `adjustment temperature: ${stock.name}`, value: t, unit: '°C', limit: 0, distribution: 'rectangular', u: 0, sensitivity: perK,
+      note: `its pH taken as set at ${t} °C (${stock.making.temperatureWritten ? 'as written' : 'none written'}); no tolerance given: ± 1 °C would add ${Number((Math.abs(perK) / RECT).toPrecision(2))} pH in u (write the stock's 'at … °C' as it was set)` });
   });
-  const readjusted = (pick: (s: (typeof sens.stocks)[number]) => number): string => {
-    const names = sens.stocks.filter((s) => pick(s) !== 0).map((s) => s.name);
+  // a constant's line notes the stocks that hold its system (pKw: every stock), whose titrant follows it
+  const readjusted = (holds: (s: (typeof sens.stocks)[number]) => boolean): string => {
+    const names = sens.stocks.filter(holds).map((s) => s.name);
     return names.length === 0 ? '' : `with ${names.join(', ')} re-adjusted to ${names.length === 1 ? 'its' : 'their'} stated pH as it moves`;
   };
   const p = sens.eq.problem;
@@ -97,7 +107,7 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
     s.system.steps.forEach((step, k) => {
       const stated = step.provenance.pKa.pKaPlusMinus;
       const input = `pKa ${s.system.name} ${k + 1}`, sensitivity = sens.perPKa[i][k], key = { system: i, step: k };
-      const also = readjusted((x) => x.perPKa[i][k]);
+      const also = readjusted((x) => x.making.contents.systemMoles.has(s.system.id));
       const line: BudgetLine = stated !== undefined
         ? { input, value: step.pKa, unit: '', limit: stated, distribution: 'normal (stated ± as u)', u: stated, sensitivity, note: sided(key, [`stated in ${step.provenance.pKa.source}`, also].filter(Boolean).join('; ')) }
         : { input, value: step.pKa, unit: '', limit: ASSUMED_PKA_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKA_HALF_WIDTH / RECT, sensitivity,
@@ -107,7 +117,7 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
       if (also) checkLinearity(line, key, -Infinity, line.input);
     });
   });
-  const alsoPKw = readjusted((x) => x.perPKw);
+  const alsoPKw = readjusted(() => true);
   const pKwLine: BudgetLine = { input: 'pKw', value: p.lnKw / -Math.LN10, unit: '', limit: ASSUMED_PKW_HALF_WIDTH, distribution: 'rectangular', u: ASSUMED_PKW_HALF_WIDTH / RECT, sensitivity: sens.perPKw,
     note: sided('pKw', [`no uncertainty read from IAPWS R11-07: ±${ASSUMED_PKW_HALF_WIDTH} assumed`, alsoPKw].filter(Boolean).join('; ')) };
   lines.push(pKwLine);
