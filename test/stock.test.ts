@@ -126,6 +126,15 @@ describe('stocks with a pH, as the trade writes them', () => {
     expect(Math.abs(diluted - 8.0)).toBeGreaterThan(0.01);
   });
 
+  test('`Tris HCl` with a space (the salt\'s name) brought to a pH is read as the salt with NaOH, and WARNINGS names the other reading', () => {
+    // the two readings hold other counter-ions (Cl⁻ 1 against 0.6 mol/L), which moves a diluted mixture's pH by about 0.04
+    const warned = warnings([['1 M Tris HCl pH 8.0'], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1);
+    expect(warned).toContain('the stock 1 M Tris hydrochloride pH 8 is read as Tris hydrochloride brought to pH 8 with sodium hydroxide; if it is Tris brought to pH 8 with HCl, write 1 M Tris-HCl pH 8 (or 1 M Tris pH 8 with HCl)');
+    for (const text of ['1 M Tris-HCl pH 8.0', '1 M Tris hydrochloride pH 8.0', '1 M Tris HCl pH 8.0 with NaOH']) {
+      expect([text, warnings([[text], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1)]).not.toEqual([text, expect.stringContaining('is read as')]);
+    }
+  });
+
   test('a target the titrant cannot reach is #N/A, and an unknown reagent names itself', () => {
     const v = evaluateSheet([['=PROTIC.PHMIX("1 M Tris pH 3 with NaOH",1,"L")', '=PROTIC.PHMIX("1 M Trsi pH 8.0",1,"L")']]);
     expect(errorText(v[0][0])).toMatch(/^#N\/A /);

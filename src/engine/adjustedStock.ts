@@ -66,6 +66,18 @@ export function parseAdjustedStock(text: string): AdjustedStockText | undefined 
   };
 }
 
+// `Tris HCl pH 8.0` (a space, not a hyphen): the name of a salt, Tris hydrochloride, which is then brought to the pH with
+// NaOH; labs also write it for Tris base brought down with HCl, which holds other counter-ions (0.6 against 1 mol/L Cl⁻)
+const SPACED_TITRANT = /\s(HCl|NaOH|KOH)$/i;
+
+/** A warning where the text could be read the other way (SPACED_TITRANT), naming both; '' otherwise. */
+function readingWarning(s: AdjustedStockText, reagentName: string, titrantName: string, stockName: string): string {
+  const spaced = SPACED_TITRANT.exec(s.reagentText);
+  if (!spaced || s.titrantText !== undefined) return '';
+  const base = s.reagentText.slice(0, spaced.index).trim(), molar = `${String(Number(s.concentrationM.toPrecision(6)))} M`;
+  return `the stock ${stockName} is read as ${reagentName} brought to pH ${s.targetPH} with ${titrantName}; if it is ${base} brought to pH ${s.targetPH} with ${spaced[1]}, write ${molar} ${base}-${spaced[1]} pH ${s.targetPH} (or ${molar} ${base} pH ${s.targetPH} with ${spaced[1]})`;
+}
+
 /** The titrant as a pure compound made up to volume: it adds no volume of its own. */
 function asMadeUpToVolume(resolved: ResolvedReagent): ReagentSpec {
   return { resolved: { ...resolved, reagent: { ...resolved.reagent, liquid: undefined } } };
@@ -100,7 +112,8 @@ export function adjustedStockComposition(s: AdjustedStockText, text: string, arg
       + ` (${Number((result.moles).toPrecision(6))} mol/L) at ${s.temperatureC} °C, ${model}, made up to volume`,
     systemsMPerL: contents.systemMoles,
     ionsMPerL: contents.ionMoles,
-    warning: modelWarning(made) === '' ? undefined : `the stock ${name} itself, as adjusted at ${s.temperatureC} °C: ${modelWarning(made)}`,
+    warning: [readingWarning(s, reagent.reagent.name, titrant.resolved.reagent.name, name),
+      modelWarning(made) === '' ? '' : `the stock ${name} itself, as adjusted at ${s.temperatureC} °C: ${modelWarning(made)}`].filter(Boolean).join('; ') || undefined,
     adjusted: { identity: [reagent.reagent.id, s.concentrationM, s.targetPH, titrant.resolved.reagent.id, s.temperatureC, model].join('|'),
       statedPH: s.targetPH, statedHalfDigit: 0.5 * 10 ** -s.targetPHDecimals, contents, titrant: titrant.resolved.reagent, titrantMPerL: result.moles,
       temperatureC: s.temperatureC, temperatureWritten: s.temperatureWritten, model },
