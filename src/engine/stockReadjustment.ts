@@ -16,8 +16,10 @@ import { shiftConstants } from './uncertainty';
 // at its pH. The budget's constant lines therefore differentiate the mixture with each such stock re-adjusted:
 // d pH/dθ = ∂pH/∂θ + Σ_stocks ∂pH/∂n · dn/dθ, with dn/dθ = −(∂pH_stock/∂θ)/(∂pH_stock/∂n) from the stock's own
 // solve (implicit function of its adjustment), n its titrant in mol per litre of stock; and the stated pH is an input
-// of its own, dn/dpH_stated = 1/(∂pH_stock/∂n). Every partial is a central difference of full solves. A moved
-// constant moves by the same amount at the stock's temperature and at the mixture's (one constant, one error).
+// of its own, dn/dpH_stated = 1/(∂pH_stock/∂n), and so is the temperature its pH was set at. The stock's partials are
+// central differences of its full solves; the mixture's pH per mole of titrant is the implicit derivative where the
+// model has one (davies, bates-guggenheim, ideal), else a difference of full solves. A moved constant moves by the same
+// amount at the stock's temperature and at the mixture's (one constant, one error).
 
 /** pH move aimed at by a titrant step (as budgetSensitivities' amount steps). */
 const PH_STEP = 1e-4;
