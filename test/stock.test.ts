@@ -129,7 +129,10 @@ describe('stocks with a pH, as the trade writes them', () => {
   test('`Tris HCl` with a space (the salt\'s name) brought to a pH is read as the salt with NaOH, and WARNINGS names the other reading', () => {
     // the two readings hold other counter-ions (Cl⁻ 1 against 0.6 mol/L), which moves a diluted mixture's pH by about 0.04
     const warned = warnings([['1 M Tris HCl pH 8.0'], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1);
-    expect(warned).toContain('the stock 1 M Tris hydrochloride pH 8 is read as Tris hydrochloride brought to pH 8 with sodium hydroxide; if it is Tris brought to pH 8 with HCl, write 1 M Tris-HCl pH 8 (or 1 M Tris pH 8 with HCl)');
+    // the suggestion keeps the pH's digits as written (pH 8 would widen UNCERTAINTY's stated-pH limit tenfold)
+    expect(warned).toContain('the stock 1 M Tris hydrochloride pH 8 is read as Tris hydrochloride brought to pH 8.0 with sodium hydroxide (write … with sodium hydroxide to keep this reading); if it is Tris brought to pH 8.0 with HCl, write 1 M Tris-HCl pH 8.0 (or 1 M Tris pH 8.0 with HCl)');
+    // where the other reading cannot be made (Tris base alone reads about 11.05, so HCl cannot bring it to 11.5), no warning
+    expect(warnings([['1 M Tris HCl pH 11.5'], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1)).not.toContain('is read as');
     for (const text of ['1 M Tris-HCl pH 8.0', '1 M Tris hydrochloride pH 8.0', '1 M Tris HCl pH 8.0 with NaOH']) {
       expect([text, warnings([[text], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1)]).not.toEqual([text, expect.stringContaining('is read as')]);
     }

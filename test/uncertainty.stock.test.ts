@@ -129,6 +129,23 @@ describe('catalogue stocks, against the catalogue constant moved in place (± 0.
     expect(Math.abs(two.combined - one.combined)).toBeLessThan(1e-9);
   });
 
+  test('one stock is one input whatever the order or spelling of its rows (pH 8.0 and 8.00; 0.7 M and 700 mM): the wider limit', () => {
+    const u = (texts: string[]): number => uncertaintyBudget([...texts.map((t) => [t]), ['NaCl']], [[20], [30], [8.77]], [['mL'], ['mL'], ['g']], 1, 25, 'davies').combined;
+    const a = u(['1 M Tris-HCl pH 8.0', '1 M Tris-HCl pH 8.00']), b = u(['1 M Tris-HCl pH 8.00', '1 M Tris-HCl pH 8.0']);
+    expect(Math.abs(a - b)).toBeLessThan(1e-12);
+    expect(Math.abs(a - u(['1 M Tris-HCl pH 8.0', '1 M Tris-HCl pH 8.0']))).toBeLessThan(1e-12);
+    const molar = uncertaintyBudget([['0.7 M Tris-HCl pH 8.0'], ['700 mM Tris-HCl pH 8.0'], ['NaCl']], [[20], [30], [8.77]], [['mL'], ['mL'], ['g']], 1, 25, 'davies');
+    expect(molar.lines.filter((l) => l.input.startsWith('stated pH:'))).toHaveLength(1);
+  });
+
+  test('a stock set at the edge of its data\'s temperature range (Tris at 0 °C): the one-sided slope, against a second-order re-make', () => {
+    const at = (t: string): number => impl.ph([[`1 M Tris-HCl pH 8.0 at ${t} °C`], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1, 25, 'davies') as number;
+    const line = uncertaintyBudget([['1 M Tris-HCl pH 8.0 at 0 °C'], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1, 25, 'davies').lines.find((l) => l.input.startsWith('adjustment temperature:'));
+    const f0 = at('0'), independent = (4 * ((at('0.05') - f0) / 0.05) - (at('0.1') - f0) / 0.1) / 3;
+    expect(independent).toBeGreaterThan(0.02);
+    expect(Math.abs((line?.sensitivity ?? NaN) - independent)).toBeLessThan(1e-5);
+  });
+
   test('the temperature the stock\'s pH was set at is a line of its own: its sensitivity is the stock re-made at ± 0.05 °C', () => {
     const at = (t: string): number => impl.ph([[`1 M Tris-HCl pH 8.0 at ${t} °C`], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1, 25, 'davies') as number;
     const line = uncertaintyBudget([['1 M Tris-HCl pH 8.0'], ['NaCl']], [[50], [8.77]], [['mL'], ['g']], 1, 25, 'davies').lines.find((l) => l.input.startsWith('adjustment temperature:'));
@@ -143,7 +160,7 @@ describe('catalogue stocks, against the catalogue constant moved in place (± 0.
   test('a stock its titrant cannot take below its natural pH: the stated pH\'s lower end is refused, and the line says only the upper end is checked', () => {
     // 1 M acetic acid reads about 2.37 alone: at pH 2.4 − 0.05 it would need less than no NaOH
     const b = uncertaintyBudget([['1 M acetic acid pH 2.4 with NaOH'], ['NaCl']], [[100], [5]], [['mL'], ['g']], 1, 25, 'davies');
-    expect(b.lines.find((l) => l.input.startsWith('stated pH:'))?.note).toMatch(/one end of the ± limit is refused, so only the other is checked \(even with none of its titrant it reads 2\.3/);
+    expect(b.lines.find((l) => l.input.startsWith('stated pH:'))?.note).toMatch(/one end of the ± limit could not be solved, so only the other is checked \(even with none of its titrant it reads 2\.3/);
   });
 
   test('at an equivalence point the stock\'s stated pH and the pKa it follows are flagged as not linear, and so is u(pH)', () => {

@@ -1,6 +1,6 @@
 import { parseModel } from './activity';
 import type { ActivityModel } from './activity';
-import { fail, quote } from './failure';
+import { ProticError, fail, quote } from './failure';
 import { addReagent } from './mixture';
 import type { Contents, ReagentSpec } from './mixture';
 import { prepareProblem } from './problem';
@@ -21,6 +21,8 @@ export interface AdjustedStockText {
   concentrationM: number;
   reagentText: string;
   targetPH: number;
+  /** the target pH as written (8.0), for messages that suggest a text */
+  targetPHText: string;
   /** decimals the target pH was written with (pH 8.0: 1) */
   targetPHDecimals: number;
   /** the titrant as written, or undefined to choose HCl or NaOH by the side of the target */
@@ -61,7 +63,7 @@ export function parseAdjustedStock(text: string): AdjustedStockText | undefined 
     titrantText = short[2];
   }
   return {
-    concentrationM: num(m[1]) * unit.toBase, reagentText, targetPH: num(m[4]), targetPHDecimals: decimalsOf(m[4]), titrantText,
+    concentrationM: num(m[1]) * unit.toBase, reagentText, targetPH: num(m[4]), targetPHText: m[4], targetPHDecimals: decimalsOf(m[4]), titrantText,
     temperatureC: m[6] === undefined ? 25 : num(m[6]), temperatureWritten: m[6] !== undefined, model: m[7] === undefined ? 'davies' : parseModel(m[7], 'reagents'),
   };
 }
@@ -70,12 +72,35 @@ export function parseAdjustedStock(text: string): AdjustedStockText | undefined 
 // NaOH; labs also write it for Tris base brought down with HCl, which holds other counter-ions (0.6 against 1 mol/L Cl⁻)
 const SPACED_TITRANT = /\s(HCl|NaOH|KOH)$/i;
 
-/** A warning where the text could be read the other way (SPACED_TITRANT), naming both; '' otherwise. */
+/**
+ * A warning where the text could be read the other way (SPACED_TITRANT), naming both, where the other is one its titrant
+ * can reach (X alone above the target for HCl, below it for NaOH or KOH); '' otherwise.
+ */
 function readingWarning(s: AdjustedStockText, reagentName: string, titrantName: string, stockName: string): string {
   const spaced = SPACED_TITRANT.exec(s.reagentText);
   if (!spaced || s.titrantText !== undefined) return '';
-  const base = s.reagentText.slice(0, spaced.index).trim(), molar = `${String(Number(s.concentrationM.toPrecision(6)))} M`;
-  return `the stock ${stockName} is read as ${reagentName} brought to pH ${s.targetPH} with ${titrantName}; if it is ${base} brought to pH ${s.targetPH} with ${spaced[1]}, write ${molar} ${base}-${spaced[1]} pH ${s.targetPH} (or ${molar} ${base} pH ${s.targetPH} with ${spaced[1]})`;
+  const base = s.reagentText.slice(0, spaced.index).trim(), acid = /^HCl$/i.test(spaced[1]);
+  let baseAlonePH: number;
+  try {
+    const alone: Contents = { systemMoles: new Map(), ionMoles: new Map(), volumeL: 1, rows: [] };
+    addReagent(alone, resolveReagent(base, 'reagents').reagent, s.concentrationM);
+    baseAlonePH = solve(prepareProblem(alone, s.temperatureC, s.model)).pH;
+  } catch (e) {
+    if (e instanceof ProticError) return ''; // the other reading names no reagent: there is no other reading
+    throw e;
+  }
+  if (acid ? !(baseAlonePH > s.targetPH) : !(baseAlonePH < s.targetPH)) return '';
+  const molar = `${String(Number(s.concentrationM.toPrecision(6)))} M`, pH = s.targetPHText;
+  return `the stock ${stockName} is read as ${reagentName} brought to pH ${pH} with ${titrantName} (write … with ${titrantName} to keep this reading); if it is ${base} brought to pH ${pH} with ${spaced[1]}, write ${molar} ${base}-${spaced[1]} pH ${pH} (or ${molar} ${base} pH ${pH} with ${spaced[1]})`;
+}
+
+/**
+ * What a stock is, however its text was spelled: its composition per litre (to 10 digits: 0.7 M and 700 mM, a hydrate
+ * and its anhydrous name, HCl and 37 % hydrochloric acid make the same stock), stated pH, temperature and model.
+ */
+function stockIdentity(contents: Contents, s: AdjustedStockText, model: ActivityModel): string {
+  const part = (m: Map<string, number>): string => [...m.entries()].filter(([, v]) => v !== 0).map(([k, v]) => `${k}=${v.toPrecision(10)}`).sort().join(',');
+  return [part(contents.systemMoles), part(contents.ionMoles), s.targetPH, s.temperatureC, model].join('|');
 }
 
 /** The titrant as a pure compound made up to volume: it adds no volume of its own. */
@@ -114,7 +139,7 @@ export function adjustedStockComposition(s: AdjustedStockText, text: string, arg
     ionsMPerL: contents.ionMoles,
     warning: [readingWarning(s, reagent.reagent.name, titrant.resolved.reagent.name, name),
       modelWarning(made) === '' ? '' : `the stock ${name} itself, as adjusted at ${s.temperatureC} °C: ${modelWarning(made)}`].filter(Boolean).join('; ') || undefined,
-    adjusted: { identity: [reagent.reagent.id, s.concentrationM, s.targetPH, titrant.resolved.reagent.id, s.temperatureC, model].join('|'),
+    adjusted: { identity: stockIdentity(contents, s, model),
       statedPH: s.targetPH, statedHalfDigit: 0.5 * 10 ** -s.targetPHDecimals, contents, titrant: titrant.resolved.reagent, titrantMPerL: result.moles,
       temperatureC: s.temperatureC, temperatureWritten: s.temperatureWritten, model },
   };

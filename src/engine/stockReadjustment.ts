@@ -47,6 +47,10 @@ export interface StockUse {
   name: string;
   making: AdjustedMaking;
   litres: number;
+  /** the widest half-digit its rows write the stated pH with (pH 8.0 and pH 8.00 of one stock: 0.05), so row order cannot matter */
+  statedHalfDigit: number;
+  /** whether any of its rows writes the temperature its pH was set at */
+  temperatureWritten: boolean;
 }
 
 /** What the budget needs of one stock: its use, and its contributions to the sensitivities. */
@@ -142,8 +146,11 @@ function stockPartials(making: AdjustedMaking): StockPartials {
   const pKa25 = new Map(made.problem.systems.map((s) => [s.system.id, s.system.steps.map((step) => step.pKa)]));
   // where a step is outside the data's temperature range, the other side alone
   const hot = stockPHOrUndefined(making, made.lnH, TEMPERATURE_STEP_C), cold = stockPHOrUndefined(making, made.lnH, -TEMPERATURE_STEP_C);
+  if (hot === undefined && cold === undefined) {
+    fail({ code: 'out_of_range', argument: 'reagents', received: `a stock set at ${making.temperatureC} °C`, expected: 'a temperature with room either side in its systems\' data range' });
+  }
   const perKelvin = hot !== undefined && cold !== undefined ? (hot - cold) / (2 * TEMPERATURE_STEP_C)
-    : hot !== undefined ? (hot - made.pH) / TEMPERATURE_STEP_C : cold !== undefined ? (made.pH - cold) / TEMPERATURE_STEP_C : 0;
+    : hot !== undefined ? (hot - made.pH) / TEMPERATURE_STEP_C : (made.pH - (cold as number)) / TEMPERATURE_STEP_C;
   const partials = { madePH: made.pH, lnH: made.lnH, perN, perPKa, pKa25, perPKw: perConstant((d) => ({ pKwShift: d })), perKelvin, remade: new Map<string, number>() };
   partialsOf.set(making, partials);
   return partials;
@@ -160,7 +167,14 @@ export function stockUses(rows: MixtureRow[], contents: Contents): StockUse[] {
     const litres = contents.rows[r].moles; // a made solution's reagent is one litre of it
     if (!making || !(litres > 0)) return;
     const use = uses.get(making.identity);
-    if (use) { use.rows.push(r); use.litres += litres; } else uses.set(making.identity, { rows: [r], rowNumber: row.row, name: row.reagent, making, litres });
+    if (use) {
+      use.rows.push(r);
+      use.litres += litres;
+      use.statedHalfDigit = Math.max(use.statedHalfDigit, making.statedHalfDigit);
+      use.temperatureWritten ||= making.temperatureWritten;
+    } else {
+      uses.set(making.identity, { rows: [r], rowNumber: row.row, name: row.reagent, making, litres, statedHalfDigit: making.statedHalfDigit, temperatureWritten: making.temperatureWritten });
+    }
   });
   return [...uses.values()];
 }
@@ -216,23 +230,23 @@ function solvedTitrant(use: StockUse, stock: StockPartials, move: ConstantMove |
     received: `${use.name} re-made at pH ${target.toFixed(4)}${move ? ' with the constant moved' : ''}`,
     reason: `even with none of its titrant it reads ${(offBy(floor) + target).toFixed(4)} (it took ${Number(making.titrantMPerL.toPrecision(4))} mol/L)`,
     expected: 'a stock its own titrant can bring to that pH' });
-  // the pH is monotonic in the titrant: a step to below none is taken to none, and where the pH there is still on the
-  // same side of the target as at the last point, the target lies beyond it
-  const clamped = (delta: number, fLast: number): [number, number] => {
+  // the pH moves one way with the titrant (the sign of its slope): a step to below none is taken to none, and where the
+  // pH there is still past the target in the slope's direction, the target lies below none of it
+  const clamped = (delta: number): [number, number] => {
     if (delta >= floor) return [delta, offBy(delta)];
     const f = offBy(floor);
-    if (Math.abs(f) > tolerance && Math.sign(f) === Math.sign(fLast)) unreachable();
+    if (Math.abs(f) > tolerance && Math.sign(f) === Math.sign(stock.perN)) unreachable();
     return [floor, f];
   };
   // the stock's pH off its target before any change, to first order from its partials
   const predicted = predictedMove(stock, move) - statedMove;
-  let [d0, f0] = clamped(predicted === 0 ? 0 : -predicted / stock.perN, predicted);
+  let [d0, f0] = clamped(predicted === 0 ? 0 : -predicted / stock.perN);
   if (Math.abs(f0) <= tolerance) return d0;
-  let [d1, f1] = clamped(d0 - f0 / stock.perN, f0);
+  let [d1, f1] = clamped(d0 - f0 / stock.perN);
   for (let iter = 0; iter < REMAKE_STEPS; iter++) {
     if (Math.abs(f1) <= tolerance) return d1;
     if (f1 === f0) break;
-    const [d2, f2] = clamped(d1 - (f1 * (d1 - d0)) / (f1 - f0), f1);
+    const [d2, f2] = clamped(d1 - (f1 * (d1 - d0)) / (f1 - f0));
     d0 = d1; f0 = f1;
     d1 = d2; f1 = f2;
   }

@@ -60,7 +60,7 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
     if (l.limit > -lowest) addNote(l, 'the ± limit is larger than the amount: below 0 is no mixture, so only the upper end is checked');
     const refused: ProticError[] = [];
     const departure = linearityDeparture(sens, key, l.limit, l.sensitivity, lowest, refused);
-    if (departure !== undefined && refused.length > 0) addNote(l, `one end of the ± limit is refused, so only the other is checked (${'reason' in refused[0].failure ? refused[0].failure.reason : refused[0].message})`);
+    if (departure !== undefined && refused.length > 0) addNote(l, `one end of the ± limit could not be solved, so only the other is checked (${'reason' in refused[0].failure ? refused[0].failure.reason : refused[0].message})`);
     if (departure !== undefined && departure <= LINEARITY_LIMIT) return;
     nonlinear.push(name);
     addNote(l, departure === undefined
@@ -82,7 +82,7 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
   // a stock written with a pH is at that pH (brought there on a meter): the pH as stated is an input, and the constants'
   // lines move its titrant with them (budgetSensitivities' stocks)
   sens.stocks.forEach((stock, index) => {
-    const half = stock.making.statedHalfDigit, limit = Math.max(half, STATED_PH_METER_HALF_WIDTH);
+    const half = stock.statedHalfDigit, limit = Math.max(half, STATED_PH_METER_HALF_WIDTH);
     const rule = half >= STATED_PH_METER_HALF_WIDTH
       ? `± ${half}, half the last digit it is written with`
       : `± ${STATED_PH_METER_HALF_WIDTH}, a meter calibrated at two points (common practice; recalled, not checked), more than half its last written digit`;
@@ -94,7 +94,7 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
     // the temperature its pH was set at: a stock set at another temperature holds another titrant
     const t = stock.making.temperatureC, perK = stock.perAdjustmentKelvin;
     lines.push({ input: `adjustment temperature: ${stock.name}`, value: t, unit: '°C', limit: 0, distribution: 'rectangular', u: 0, sensitivity: perK,
-      note: `its pH taken as set at ${t} °C (${stock.making.temperatureWritten ? 'as written' : 'none written'}); no tolerance given: ± 1 °C would add ${Number((Math.abs(perK) / RECT).toPrecision(2))} pH in u (write the stock's 'at … °C' as it was set)` });
+      note: `its pH taken as set at ${t} °C (${stock.temperatureWritten ? 'as written' : 'none written'}); no tolerance given: ± 1 °C would add ${Number((Math.abs(perK) / RECT).toPrecision(2))} pH in u (write the stock's 'at … °C' as it was set)` });
   });
   // a constant's line notes the stocks that hold its system (pKw: every stock), whose titrant follows it
   const readjusted = (holds: (s: (typeof sens.stocks)[number]) => boolean): string => {
