@@ -138,6 +138,13 @@ describe('stocks with a pH, as the trade writes them', () => {
     }
   });
 
+  test('a neutral salt is no titrant: the stock is refused, naming it, rather than made with 16.6 mol/L of NaCl', () => {
+    const v = evaluateSheet([['=PROTIC.PHMIX("1 M Tris pH 11.2 with NaCl",1,"L")', '=PROTIC.PHMIX("1 M Tris pH 7.5 with KCl",1,"L")', '=PROTIC.PHMIX("1 M sodium acetate pH 5.0 with acetic acid",1,"L")']]);
+    expect(errorText(v[0][0])).toMatch(/^#VALUE! .*a titrant that brings acid or base.*sodium chloride brings neither/);
+    expect(errorText(v[0][1])).toMatch(/^#VALUE! .*potassium chloride brings neither/);
+    expect(Math.abs((v[0][2] as number) - 5.0)).toBeLessThan(1e-6); // a weak acid is a titrant
+  });
+
   test('a target the titrant cannot reach is #N/A, and an unknown reagent names itself', () => {
     const v = evaluateSheet([['=PROTIC.PHMIX("1 M Tris pH 3 with NaOH",1,"L")', '=PROTIC.PHMIX("1 M Trsi pH 8.0",1,"L")']]);
     expect(errorText(v[0][0])).toMatch(/^#N\/A /);
