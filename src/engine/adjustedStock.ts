@@ -1,4 +1,4 @@
-import { STRONG_IONS } from '../catalogue';
+import { strongIonById } from '../catalogue';
 import { parseModel } from './activity';
 import type { ActivityModel } from './activity';
 import { ProticError, fail, quote } from './failure';
@@ -126,7 +126,7 @@ export function adjustedStockComposition(s: AdjustedStockText, text: string, arg
   // a titrant must bring acid or base: a neutral salt (NaCl) moves the pH only through activity, and a 'stock' made
   // that way took 16.6 mol/L of it to reach pH 11.2 in 1 M Tris
   const t = titrant.resolved.reagent;
-  if (t.systems.length === 0 && t.ions.reduce((q, ion) => q + ion.count * (STRONG_IONS.find((x) => x.id === ion.ionId)?.charge ?? 0), 0) === 0) {
+  if (t.systems.length === 0 && t.ions.reduce((q, ion) => q + ion.count * (strongIonById(ion.ionId)?.charge ?? 0), 0) === 0) {
     fail({ code: 'bad_argument', argument, row, received: quote(text), expected: `a titrant that brings acid or base (HCl, NaOH, KOH, or a weak acid or base); ${t.name} brings neither` });
   }
   const result = titrantForTarget(s.targetPH, contents, titrant, s.temperatureC, model);

@@ -2,15 +2,14 @@ import type { ActivityModel } from './activity';
 import { ProticError } from './failure';
 import { buildContents, contentsWithMoles, molesPerUnit } from './mixture';
 import type { Contents, MixtureRow } from './mixture';
-import type { Problem } from './problem';
 import { prepareProblem } from './problem';
 import { bufferCapacity } from './results';
 import type { Equilibrium } from './solver';
 import { solve } from './solver';
 import { isConcentrationUnit, parseUnit } from './units';
-import { CHECK_REMADE_PH_TOLERANCE, readjustedStocks, withRemadeStocks } from './stockReadjustment';
+import { CHECK_REMADE_PH_TOLERANCE, applyMove, readjustedStocks, withRemadeStocks } from './stockReadjustment';
 import type { ConstantMove, ReadjustedStock } from './stockReadjustment';
-import { PHSensitivity, reagentSensitivity, rowAmountSensitivities, shiftConstants, volumeSensitivity } from './uncertainty';
+import { PHSensitivity, reagentSensitivity, rowAmountSensitivities, volumeSensitivity } from './uncertainty';
 
 // The pH sensitivities an uncertainty budget needs, one shape for every model. Davies, Bates–Guggenheim and ideal:
 // the solver's implicit derivatives (uncertainty.ts). sit: each species' ε term moves with the composition and the
@@ -128,24 +127,20 @@ function withReadjustedStocks(sens: BudgetSensitivities): BudgetSensitivities {
 function movedSolve(eq: Equilibrium, contents: Contents, temperatureC: number, model: ActivityModel, concentrationRows: boolean[],
   perUnit: number[], stocks: ReadjustedStock[]): (input: BudgetInput, d: number) => number {
   const volumeL = contents.volumeL, baseMoles = contents.rows.map((r) => r.moles);
-  const pHOf = (c: Contents, t: number, shift?: (p: Problem) => void): number => {
-    const p = prepareProblem(c, t, model);
-    shift?.(p);
-    return solve(p, eq.lnH).pH;
-  };
-  const remade = (move: ConstantMove): Contents => (stocks.length === 0 ? contents : withRemadeStocks(contents, stocks, move, () => 0, CHECK_REMADE_PH_TOLERANCE));
+  const pHOf = (c: Contents, t: number, move?: ConstantMove): number => solve(applyMove(prepareProblem(c, t, model), move), eq.lnH).pH;
+  // a constant moved in the mixture, and in each stock that follows it
+  const moved = (move: ConstantMove): number =>
+    pHOf(stocks.length === 0 ? contents : withRemadeStocks(contents, stocks, move, () => 0, CHECK_REMADE_PH_TOLERANCE), temperatureC, move);
   return (input, d) => {
     if (input === 'volume') {
       // rows given as concentrations of the final solution keep their concentration, the others dilute
       return pHOf(contentsWithMoles(contents, baseMoles.map((m, k) => (concentrationRows[k] ? (m * (volumeL + d)) / volumeL : m)), volumeL + d), temperatureC);
     }
     if (input === 'temperature') return pHOf(contents, temperatureC + d);
-    if (input === 'pKw') return pHOf(remade({ pKwShift: d }), temperatureC, (q) => shiftConstants(q, [], d));
+    if (input === 'pKw') return moved({ pKwShift: d });
     if ('row' in input) return pHOf(contentsWithMoles(contents, baseMoles.map((m, k) => (k === input.row ? m + d * perUnit[k] : m)), volumeL), temperatureC);
     if ('stock' in input) return pHOf(withRemadeStocks(contents, [stocks[input.stock]], undefined, () => d, CHECK_REMADE_PH_TOLERANCE), temperatureC);
-    const systemId = eq.problem.systems[input.system].system.id;
-    return pHOf(remade({ systemId, step: input.step, pKaShift: d }), temperatureC,
-      (q) => shiftConstants(q, q.systems.map((s, j) => (j === input.system ? s.system.steps.map((_, m) => (m === input.step ? d : 0)) : [])), 0));
+    return moved({ systemId: eq.problem.systems[input.system].system.id, step: input.step, pKaShift: d });
   };
 }
 

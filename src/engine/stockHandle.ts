@@ -30,7 +30,7 @@ export interface StockComposition {
 
 /** How a pH-adjusted stock was made: one litre of it, the titrant that set its pH, and the conditions of the adjustment. */
 export interface AdjustedMaking {
-  /** what the stock is, however its text was spelled: reagent, concentration, stated pH, titrant, temperature, model */
+  /** what the stock is, however its text was spelled: its composition per litre, stated pH, temperature and model */
   identity: string;
   statedPH: number;
   /** half a unit of the last digit the stated pH was written to (pH 8.0: 0.05) */

@@ -84,7 +84,7 @@ interface StockPartials {
 const partialsOf = new WeakMap<AdjustedMaking, StockPartials>();
 
 /** The move applied to a prepared problem (a system it does not hold is left as it is). */
-function applyMove(q: Problem, move: ConstantMove | undefined): Problem {
+export function applyMove(q: Problem, move: ConstantMove | undefined): Problem {
   if (move === undefined) return q;
   if ('pKwShift' in move) { shiftConstants(q, [], move.pKwShift); return q; }
   const j = q.systems.findIndex((s) => s.system.id === move.systemId);
