@@ -156,8 +156,9 @@ const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scal
  * Joint Newton in (ln h, L) on the charge balance f(y, L) = 0 and the activity consistency
  * L − g(I(y, L)) = 0, with analytic derivatives; converges in a few evaluations from a fair start.
  * Returns undefined when it does not settle, and the caller falls back to the bracketed method.
+ * `stepTolerance`: the Newton step in ln h (and a tenth of it in L) below which an evaluated point is the root.
  */
-function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: number): { y: number; f: number; scale: number; ionic: number } | undefined {
+function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: number, stepTolerance = 1e-11): { y: number; f: number; scale: number; ionic: number } | undefined {
   let L = lnGammaZ2For(problem, startingIonicStrength(problem));
   let y = yStart ?? startingLnH(problem, L);
   // first offsets from the starting guess (no shift: the guess is no root to move)
@@ -171,8 +172,9 @@ function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: 
     let dL = (-F2 * j11 + f * j21) / det;
     if (!Number.isFinite(dy) || !Number.isFinite(dL)) return undefined;
     // quadratic convergence: a step this small means this point is already the root to about
-    // 1e-12 in ln h, and the values in `joint` are this point's own, so no further evaluation
-    const converged = (Math.abs(f) <= 1e-15 * joint.scale && Math.abs(F2) <= LN_GAMMA_TOLERANCE) || (Math.abs(dy) < 1e-11 && Math.abs(dL) < 1e-12);
+    // 1e-12 in ln h (stepTolerance 1e-11; pHWithin states its own), and the values in `joint` are this point's own,
+    // so no further evaluation
+    const converged = (Math.abs(f) <= 1e-15 * joint.scale && Math.abs(F2) <= LN_GAMMA_TOLERANCE) || (Math.abs(dy) < stepTolerance && Math.abs(dL) < 0.1 * stepTolerance);
     // the specific-ion offsets follow the speciation, lagged one step; a root counts only once they have settled
     if (problem.sit) {
       const moved = sitRefresh(problem, y, true);
@@ -217,6 +219,19 @@ function settleActivity(problem: Problem, yStart: number | undefined): number {
     setActivity(problem, lnGamma);
   }
   return fail({ code: 'no_convergence', argument: 'reagents', received: `an ionic strength that did not settle (ln γ/z² still moving from ${previous} to ${lnGamma})`, expected: 'a mixture within the model range' });
+}
+
+/**
+ * pH of a problem to a stated precision rather than to the last digits: the joint Newton stops at an evaluated
+ * point where its next step in ln h, its step in L (a tenth of it) and the sit offsets' move are all below
+ * `lnTolerance` (ln units), so the pH returned is that point's own and within about 2·lnTolerance/ln 10 of the
+ * root; where the joint Newton does not settle, the full solve. For a pH only printed (WARNINGS' sit departure,
+ * to 0.001), where the last confirming evaluations buy nothing.
+ * @example pHWithin(prepareProblem(contents, 25, 'sit'), 1e-6) // the sit pH within about 1e-6
+ */
+export function pHWithin(problem: Problem, lnTolerance: number): number {
+  const joint = solveJoint(problem, undefined, lnTolerance, lnTolerance);
+  return joint ? pHFromLnH(problem, joint.y) : solve(problem).pH;
 }
 
 /**
