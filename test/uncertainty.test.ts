@@ -78,6 +78,37 @@ describe('UNCERTAINTY: where first order does not hold over a ± limit, the line
   });
 });
 
+describe('UNCERTAINTY: a u(pH) that first order cannot carry is no number in its cell', () => {
+  // 0.1 M HCl against 0.1 M NaOH at equivalence, ± 0.5 mL each: the first-order u is far off, so u and U are words
+  const sheet = (tolerance: number) => evaluateSheet([
+    ['0.1 M HCl', 500, 'mL', tolerance], ['0.1 M NaOH', 500, 'mL', tolerance],
+    ['=PROTIC.UNCERTAINTY(A1:A2,B1:B2,C1:C2,1.1,25,"davies",D1:D2,0,0)'],
+  ]);
+  const cell = (v: unknown[][], name: string) => v.slice(2).find((r) => r[0] === name)!;
+  test('at an equivalence point u(pH) and U are texts that give the first-order value and the reason, and a formula on them is an error', () => {
+    const v = sheet(0.5);
+    const b = uncertaintyBudget([['0.1 M HCl'], ['0.1 M NaOH']], [[500], [500]], [['mL'], ['mL']], 1.1, 25, 'davies', [[0.5], [0.5]], 0, 0);
+    expect(b.nonlinear.length).toBeGreaterThan(0);
+    const u = cell(v, 'combined standard uncertainty u(pH)')[1], U = cell(v, 'expanded uncertainty U (k = 2)')[1];
+    expect(u).toBe(`not reliable: ${Number(b.combined.toPrecision(3))} by first order, but first order does not hold, or could not be checked, over the ± limit of ${b.nonlinear.join(', ')}; check by a Monte Carlo (JCGM 101) or narrow the tolerance`);
+    expect(String(U)).toMatch(new RegExp(`^not reliable: ${Number((2 * b.combined).toPrecision(3))} by first order`));
+    // a cell that doubles u, as a record might: not a number
+    const offset = v.slice(2).findIndex((r) => r[0] === 'combined standard uncertainty u(pH)') + 1;
+    const doubled = evaluateSheet([
+      ['0.1 M HCl', 500, 'mL', 0.5], ['0.1 M NaOH', 500, 'mL', 0.5],
+      [`=2*INDEX(PROTIC.UNCERTAINTY(A1:A2,B1:B2,C1:C2,1.1,25,"davies",D1:D2,0,0),${offset},2)`],
+    ])[2][0];
+    expect(typeof doubled).not.toBe('number');
+  });
+
+  test('the same mixture with tolerances first order carries (± 0.001 mL) keeps its numbers', () => {
+    const v = sheet(0.001);
+    const u = cell(v, 'combined standard uncertainty u(pH)')[1], U = cell(v, 'expanded uncertainty U (k = 2)')[1];
+    expect(typeof u).toBe('number');
+    expect(U).toBeCloseTo(2 * (u as number), 12);
+  });
+});
+
 describe('UNCERTAINTY: first-order checks that cannot be made are said', () => {
   test('a ± limit larger than the amount, and ends the data refuse (HCl 10 mM ± 50,000 mM)', () => {
     const b = uncertaintyBudget([['HCl']], [[10]], [['mM']], 1, 25, 'davies', [[50000]], 0, 0);

@@ -133,8 +133,12 @@ export function uncertainty(reagents: Cell, amounts: Cell, units: Cell, volume: 
   const fin = (v: number): number => { if (!Number.isFinite(v)) fail({ code: 'no_convergence', argument: 'reagents', received: String(v), expected: 'a finite sensitivity; please report this input' }); return v; };
   const table: CellScalar[][] = [UNCERTAINTY_HEADER, ['pH', fin(b.pH), '', '', '', '', '', '', 'the value the budget is for']];
   for (const l of b.lines) table.push([l.input, l.value, l.unit, l.limit, l.distribution, fin(l.u), fin(l.sensitivity), fin(Math.abs(l.sensitivity) * l.u), l.note]);
-  const caution = b.nonlinear.length > 0 ? `; not reliable: first order does not hold, or could not be checked, over the ± limit of ${b.nonlinear.join(', ')}` : '';
-  table.push(['combined standard uncertainty u(pH)', fin(b.combined), '', '', '', '', '', '', `GUM (JCGM 100:2008), first-order propagation, inputs uncorrelated; ${b.method}${caution}`]);
-  table.push(['expanded uncertainty U (k = 2)', fin(2 * b.combined), '', '', '', '', '', '', 'about 95 % coverage for a near-normal output']);
+  // where a line's own check found first order failing, u and U are no numbers a formula should take up: each cell
+  // says so in words, with the first-order value beside the reason (a reference to it reads as text, #VALUE! in arithmetic)
+  const why = `first order does not hold, or could not be checked, over the ± limit of ${b.nonlinear.join(', ')}`;
+  const reliable = b.nonlinear.length === 0;
+  const value = (v: number): CellScalar => (reliable ? fin(v) : `not reliable: ${Number(fin(v).toPrecision(3))} by first order, but ${why}; check by a Monte Carlo (JCGM 101) or narrow the tolerance`);
+  table.push(['combined standard uncertainty u(pH)', value(b.combined), '', '', '', '', '', '', `GUM (JCGM 100:2008), first-order propagation, inputs uncorrelated; ${b.method}${reliable ? '' : `; not reliable: ${why}`}`]);
+  table.push(['expanded uncertainty U (k = 2)', value(2 * b.combined), '', '', '', '', '', '', 'about 95 % coverage for a near-normal output']);
   return table;
 }
