@@ -1,6 +1,8 @@
 import { buildContents, pKaAt, pKw, prepareProblem, solve, updateIonSums, waterDensityKgPerL } from '../src/engine';
 import { ACID_SYSTEMS } from '../src/catalogue';
 import * as impl from '../src/functions/impl';
+import { bufferCapacity } from '../src/engine';
+import * as chargeBalanceModule from '../src/engine/chargeBalance';
 
 const LN10 = Math.LN10;
 // Constants and pH are molal; in mol/L, ideal: [H⁺] = 10^−pH·ρw and [OH⁻] = Kw·ρw²/[H⁺].
@@ -74,5 +76,28 @@ describe('buffer capacity β = dCb/dpH', () => {
     // through the cells the density follows the added NaOH and HCl, which occupy different volumes: β leaves that
     // out, and it is under 2e-4 of β for these buffers
     expect(Math.abs(centralDifference(reagents, molar, 'davies') / beta - 1)).toBeLessThan(2e-4);
+  });
+});
+
+describe('β from the solve\'s own last Jacobian', () => {
+  // the joint Newton returns at a point it evaluated: its Jacobian there is the one β needs, so CAPACITY beside PHMIX
+  // evaluates nothing; checked against the Jacobian evaluated again at the solution (the path the bracketed method takes)
+  test.each([
+    ['phosphate in 0.5 M NaCl, davies', [['KH2PO4'], ['Na2HPO4'], ['NaCl']], [[3.4], [3.55], [29.2]], 'davies'],
+    ['citrate + NaOH, bates-guggenheim', [['citric acid'], ['NaOH']], [[9.6], [4]], 'bates-guggenheim'],
+    ['EDTA with NaOH, davies', [['disodium EDTA dihydrate'], ['NaOH']], [[18.6], [2]], 'davies'],
+  ])('%s', (_, reagents, grams, model) => {
+    const rows = reagents.map(([reagent], i) => ({ reagent, amount: grams[i][0], unit: 'g', row: i + 1 }));
+    const eq = solve(prepareProblem(buildContents(rows, 1), 25, model as 'davies'));
+    expect(Number.isFinite(eq.lnActivityPerBase)).toBe(true);
+    const spy = jest.spyOn(chargeBalanceModule, 'chargeBalanceJacobian');
+    let beta: number;
+    try {
+      beta = bufferCapacity(eq);
+      expect(spy).not.toHaveBeenCalled();
+    } finally {
+      spy.mockRestore();
+    }
+    expect(Math.abs(beta / bufferCapacity({ ...eq, lnActivityPerBase: NaN }) - 1)).toBeLessThan(1e-11);
   });
 });

@@ -56,7 +56,8 @@ function cpuMs(): number {
   return (u.user + u.system) / 1000;
 }
 
-const ROUNDS = 15;
+// 31 rounds: the five-together row's ratio moved by ± 0.15 between runs of 15 on this 2-core machine
+const ROUNDS = 31;
 const PER_BATCH = 2000;
 let sink = 0;
 let nextIndex = 1_000_000;
@@ -251,7 +252,7 @@ export function cellsBench(): { lines: string[]; results: Record<string, unknown
   };
   const f = (x: number, d = 2): string => x.toFixed(d);
   const lines = [
-    'cell layer: PHMIX from Node (KH2PO4 + Na2HPO4 + NaCl varying, 1 L, davies, 25 °C), CPU time, median of 15 interleaved rounds of 2000 calls (ratios: median of each round’s own)',
+    `cell layer: PHMIX from Node (KH2PO4 + Na2HPO4 + NaCl varying, 1 L, davies, 25 °C), CPU time, median of ${ROUNDS} interleaved rounds of 2000 calls (ratios: median of each round’s own)`,
     `  prepare+solve of the same mixtures (engine alone)        ${f(node.prepareSolveUs)} µs`,
     ...(['shared', 'per-row'] as Layout[]).map((l) => `  PHMIX, ${l.padEnd(7)} layout: distinct ${f(node.distinctUs[l])} µs (${f(node.distinctOverPrepareSolve[l])}× prepare+solve, target ≤ 2), repeated input ${f(node.hitUs[l])} µs (target ≤ 1.5)`),
     `  allocation per call: distinct ${f(allocation.sharedDistinctBytes, 0)} B shared, ${f(allocation.perRowDistinctBytes, 0)} B per-row; repeated ${f(allocation.sharedHitBytes, 0)} B shared, ${f(allocation.perRowHitBytes, 0)} B per-row (collections during measurement: ${allocation.collectionsDuringMeasurement})`,

@@ -128,6 +128,8 @@ const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scal
 export function bufferCapacity(eq: Equilibrium): number {
   const p = eq.problem;
   if (p.sit) return sitBufferCapacity(eq);
+  // the joint Newton's last evaluation was at the solution itself: its Jacobian gives β with no evaluation of its own
+  if (Number.isFinite(eq.lnActivityPerBase)) return -Math.LN10 / eq.lnActivityPerBase;
   // jointJacobian sets the problem's conditional constants; put back the solution's own, so a result
   // read from this equilibrium afterwards (SPECIES, CONSTANTS) does not depend on whether β came first
   const solvedLnGammaZ2 = p.lnGammaZ2;
@@ -214,8 +216,10 @@ export function modelWarning(eq: Equilibrium): string {
       });
     }
     const binds = s.system.bindsIons;
-    const bound = binds ? p.ions.filter((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id)).map((ion) => ionLabel(ion.id)) : [];
-    if (binds && p.totalsM[i] > 0 && bound.length > 0) warnings.push(`${s.system.name} with ${bound.join(' and ')}: ${binds.reason}`);
+    if (binds && p.totalsM[i] > 0 && p.ions.some((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id))) {
+      const bound = p.ions.filter((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id)).map((ion) => ionLabel(ion.id));
+      warnings.push(`${s.system.name} with ${bound.join(' and ')}: ${binds.reason}`);
+    }
   });
   warnings.push(...p.notes);
   return warnings.join('; ');

@@ -17,6 +17,11 @@ export interface Equilibrium {
   residualRelative: number;
   /** charge-balance evaluations this solve took */
   evaluations: number;
+  /**
+   * d(ln h + L)/dCb per mol/L of strong-base charge at the solution, from the joint Newton's Jacobian at the point it
+   * returned (that point's own evaluation); NaN where the bracketed method solved it. bufferCapacity reads it.
+   */
+  lnActivityPerBase: number;
 }
 
 // ln [H⁺] bracket: pH about −4 to 23, wider than any aqueous solution the catalogue can make.
@@ -158,7 +163,7 @@ const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scal
  * Returns undefined when it does not settle, and the caller falls back to the bracketed method.
  * `stepTolerance`: the Newton step in ln h (and a tenth of it in L) below which an evaluated point is the root.
  */
-function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: number, stepTolerance = 1e-11): { y: number; f: number; scale: number; ionic: number } | undefined {
+function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: number, stepTolerance = 1e-11): { y: number; f: number; scale: number; ionic: number; perBase: number } | undefined {
   let L = lnGammaZ2For(problem, startingIonicStrength(problem));
   let y = yStart ?? startingLnH(problem, L);
   // first offsets from the starting guess (no shift: the guess is no root to move)
@@ -178,11 +183,12 @@ function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: 
     // the specific-ion offsets follow the speciation, lagged one step; a root counts only once they have settled
     if (problem.sit) {
       const moved = sitRefresh(problem, y, true);
-      if (converged && moved <= sitTolerance) return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM };
+      if (converged && moved <= sitTolerance) return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM, perBase: (j21 - j22) / det };
       // the Newton step below is still taken: it is this point's own, and the new offsets' shift is added to it
       y += sitApply(problem, j11);
     } else if (converged) {
-      return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM };
+      // d(ln h, L)/dCb = −J⁻¹ (1, 0), for bufferCapacity without a further evaluation
+      return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM, perBase: (j21 - j22) / det };
     }
     if (Math.abs(dy) > MAX_STEP_LN) { const k = MAX_STEP_LN / Math.abs(dy); dy *= k; dL *= k; }
     if (Math.abs(dL) > 0.5) dL = Math.sign(dL) * 0.5;
@@ -247,7 +253,7 @@ export function solve(problem: Problem, yStart?: number, method: 'auto' | 'brack
   if (problem.model !== 'ideal' && method === 'auto') {
     const joint = solveJoint(problem, yStart, sitTolerance);
     if (joint && Math.abs(joint.f) / joint.scale < 1e-12) {
-      return { problem, lnH: joint.y, pH: pHFromLnH(problem, joint.y), ionicStrengthM: joint.ionic, residualRelative: Math.abs(joint.f) / joint.scale, evaluations: problem.evaluations - before };
+      return { problem, lnH: joint.y, pH: pHFromLnH(problem, joint.y), ionicStrengthM: joint.ionic, residualRelative: Math.abs(joint.f) / joint.scale, evaluations: problem.evaluations - before, lnActivityPerBase: joint.perBase };
     }
   }
   const y = settleActivity(problem, yStart);
@@ -260,5 +266,6 @@ export function solve(problem: Problem, yStart?: number, method: 'auto' | 'brack
     ionicStrengthM: scratch.ionicStrengthM,
     residualRelative: Math.abs(f) / scratch.chargeScaleM,
     evaluations: problem.evaluations - before,
+    lnActivityPerBase: NaN,
   };
 }
