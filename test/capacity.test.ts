@@ -99,5 +99,12 @@ describe('β from the solve\'s own last Jacobian', () => {
       spy.mockRestore();
     }
     expect(Math.abs(beta / bufferCapacity({ ...eq, lnActivityPerBase: NaN }) - 1)).toBeLessThan(1e-11);
+    // and against full solves by the bracketed method with ± δ mol/L of strong-base charge (no counter-ion, as β has it)
+    const delta = 1e-6 * eq.ionicStrengthM;
+    const pHWith = (d: number): number => {
+      const p = { ...eq.problem, strongChargeM: eq.problem.strongChargeM + d, systems: eq.problem.systems.map((x) => ({ ...x, lnCumK: new Float64Array(x.lnCumK.length) })) };
+      return solve(p, eq.lnH, 'bracketed').pH;
+    };
+    expect(Math.abs((2 * delta) / (pHWith(delta) - pHWith(-delta)) / beta - 1)).toBeLessThan(1e-7);
   });
 });

@@ -19,7 +19,8 @@ export interface Equilibrium {
   evaluations: number;
   /**
    * d(ln h + L)/dCb per mol/L of strong-base charge at the solution, from the joint Newton's Jacobian at the point it
-   * returned (that point's own evaluation); NaN where the bracketed method solved it. bufferCapacity reads it.
+   * returned (that point's own evaluation); NaN where the bracketed method solved it, and under sit (whose offsets move
+   * with the base added, which this Jacobian holds fixed). bufferCapacity reads it.
    */
   lnActivityPerBase: number;
 }
@@ -183,7 +184,8 @@ function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: 
     // the specific-ion offsets follow the speciation, lagged one step; a root counts only once they have settled
     if (problem.sit) {
       const moved = sitRefresh(problem, y, true);
-      if (converged && moved <= sitTolerance) return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM, perBase: (j21 - j22) / det };
+      // (no β from here: this Jacobian holds the offsets fixed, which β under sit must not; sitBufferCapacity solves for it)
+      if (converged && moved <= sitTolerance) return { y, f, scale: joint.scale, ionic: joint.ionicStrengthM, perBase: NaN };
       // the Newton step below is still taken: it is this point's own, and the new offsets' shift is added to it
       y += sitApply(problem, j11);
     } else if (converged) {

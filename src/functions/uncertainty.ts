@@ -134,7 +134,9 @@ export function uncertainty(reagents: Cell, amounts: Cell, units: Cell, volume: 
   const table: CellScalar[][] = [UNCERTAINTY_HEADER, ['pH', fin(b.pH), '', '', '', '', '', '', 'the value the budget is for']];
   for (const l of b.lines) table.push([l.input, l.value, l.unit, l.limit, l.distribution, fin(l.u), fin(l.sensitivity), fin(Math.abs(l.sensitivity) * l.u), l.note]);
   // where a line's own check found first order failing, u and U are no numbers a formula should take up: each cell
-  // says so in words, with the first-order value beside the reason (a reference to it reads as text, #VALUE! in arithmetic)
+  // says so in words, with the first-order value beside the reason (a reference to it reads as text, #VALUE! in arithmetic).
+  // The lines' contributions stay numbers, each with its note: as text, a SUMSQ over the column would skip the very
+  // lines that fail and give a smaller u with no sign of it.
   const why = `first order does not hold, or could not be checked, over the ± limit of ${b.nonlinear.join(', ')}`;
   const reliable = b.nonlinear.length === 0;
   const value = (v: number): CellScalar => (reliable ? fin(v) : `not reliable: ${Number(fin(v).toPrecision(3))} by first order, but ${why}; check by a Monte Carlo (JCGM 101) or narrow the tolerance`);
