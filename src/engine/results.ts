@@ -216,9 +216,9 @@ export function modelWarning(eq: Equilibrium): string {
       });
     }
     const binds = s.system.bindsIons;
-    if (binds && p.totalsM[i] > 0 && p.ions.some((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id))) {
+    if (binds && p.totalsM[i] > 0) {
       const bound = p.ions.filter((ion) => ion.concentrationM > 0 && binds.ionIds.includes(ion.id)).map((ion) => ionLabel(ion.id));
-      warnings.push(`${s.system.name} with ${bound.join(' and ')}: ${binds.reason}`);
+      if (bound.length > 0) warnings.push(`${s.system.name} with ${bound.join(' and ')}: ${binds.reason}`);
     }
   });
   warnings.push(...p.notes);

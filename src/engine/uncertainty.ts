@@ -169,6 +169,7 @@ function lnWaterSlope(p: Problem, contents: Contents, deltaPerUnit: number[], h:
  * reagent per unit of its amount (a row's moles are proportional to its amount), so a row at 0 has its slope too.
  */
 export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, molesPerUnit: number[]): number[] {
+  const p = sens.eq.problem;
   const perLnWater = sens.perLnWaterDensity();
   return contents.rows.map((row, r) => {
     const perUnit = molesPerUnit[r];
@@ -176,7 +177,6 @@ export function rowAmountSensitivities(sens: PHSensitivity, contents: Contents, 
     const along = contents.rows.map((_, k) => (k === r ? perUnit / contents.volumeL : 0));
     // the density formula's slope by a difference of ± 1e-4 of the row's amount, or at amount 0 forward by 1 µmol/L of it
     // (the formula has kinks where its protons change hands, within a few mmol/L of a row at 0; it has no solve noise)
-    const p = sens.eq.problem;
     const viaDensity = perLnWater * (row.moles > 0 ? lnWaterSlope(p, contents, along, (1e-4 * row.moles) / perUnit) : lnWaterSlope(p, contents, along, (1e-6 * contents.volumeL) / perUnit, true));
     return releasedSensitivity(sens, contents, row.reagent) * perUnit + viaDensity;
   });
