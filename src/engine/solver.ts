@@ -62,59 +62,93 @@ export function solveFixedActivity(problem: Problem, yStart: number, out: Balanc
   return fail({ code: 'no_convergence', argument: 'reagents', received: 'a mixture whose charge balance has no root between pH −4 and 23 or did not converge', expected: 'a mixture within the catalogue ranges; please report this case' });
 }
 
+/** Where the proton condition's charge runs out, as startingLnH and startingIonicStrength read it (module scratch). */
+const handout = { remaining: 0, anySystem: false, stop: -1, fraction: 0, previous: -1, systemsZ2M: 0 };
+
 /**
- * A first ionic strength, mol/L: the strong ions, and the charge the systems must carry to
- * balance them shared evenly over their molecules (Σ C z² ≥ Q² / Σ C).
+ * The proton condition: the charge the systems must carry (strong ions and their most protonated charges) is handed
+ * out to the steps in order of pKa, strongest acid first. Records the step where it runs out (`stop`, an index into
+ * stepOrder; order.length past the last), the fraction of that step handed out, the last step before it, what
+ * remains (minus a strong acid excess, or a strong base excess past the last step), and Σ C z² of the systems' forms
+ * so handed out (mol/L). Independent of the activity correction, which moves the constants, not their order.
  */
-export function startingIonicStrength(problem: Problem): number {
-  let carried = problem.strongChargeM, total = 0;
-  for (let i = 0; i < problem.systems.length; i++) {
-    carried += problem.totalsM[i] * problem.systems[i].z0;
-    total += problem.totalsM[i];
+function handOut(problem: Problem): typeof handout {
+  let remaining = problem.strongChargeM, z2 = 0;
+  let anySystem = false;
+  const systems = problem.systems, totals = problem.totalsM, order = problem.stepOrder;
+  for (let i = 0; i < systems.length; i++) {
+    remaining += totals[i] * systems[i].z0;
+    z2 += totals[i] * systems[i].z0 * systems[i].z0;
+    if (totals[i] > 0) anySystem = true;
   }
-  return (problem.strongZ2M + (total > 0 ? (carried * carried) / total : 0)) / 2;
+  handout.anySystem = anySystem;
+  handout.stop = -1;
+  handout.fraction = 0;
+  handout.previous = -1;
+  if (anySystem && remaining > 0) {
+    let k = 0;
+    for (; k < order.length; k++) {
+      const c = totals[order[k] >> 3];
+      if (c <= 0) continue;
+      // the step takes the system's form from charge z to z − 1
+      const z = systems[order[k] >> 3].z0 - (order[k] & 7), stepZ2 = c * ((z - 1) * (z - 1) - z * z);
+      if (remaining < c) {
+        handout.fraction = remaining / c;
+        z2 += handout.fraction * stepZ2;
+        break;
+      }
+      remaining -= c;
+      z2 += stepZ2;
+      handout.previous = order[k];
+    }
+    handout.stop = k;
+  }
+  handout.remaining = remaining;
+  handout.systemsZ2M = Math.max(0, z2);
+  return handout;
 }
 
 /**
- * A starting ln h from the proton condition: the charge the systems must carry (strong ions
- * and their most protonated charges) is handed out to the steps in order of pKa, strongest acid
- * first; the step where it runs out sets pH ≈ pKa + log10(lost/kept) (Henderson–Hasselbalch),
- * or the mean of two pKa between steps; a strong acid or base excess sets h or OH directly.
+ * A first ionic strength, mol/L: the strong ions, the systems' forms as the proton condition hands out their charge
+ * (see startingLnH), and a strong acid or base excess as free H⁺ or OH⁻.
+ * @example startingIonicStrength(prepareProblem(contents, 25, 'sit')) // 3.6 for 1.2 M ammonium sulfate (NH₄⁺, SO₄²⁻)
+ */
+export function startingIonicStrength(problem: Problem): number {
+  const p = handOut(problem);
+  const free = p.stop >= 0 && p.stop < problem.stepOrder.length ? 0 : Math.abs(p.remaining);
+  return (problem.strongZ2M + p.systemsZ2M + free) / 2;
+}
+
+/**
+ * A starting ln h from the proton condition (handOut): the step where the charge runs out sets
+ * pH ≈ pKa + log10(lost/kept) (Henderson–Hasselbalch), or the mean of two pKa between steps; a strong acid or base
+ * excess sets h or OH directly.
  */
 export function startingLnH(problem: Problem, lnGammaZ2 = 0): number {
-  let remaining = problem.strongChargeM;
-  let anySystem = false;
-  for (let i = 0; i < problem.systems.length; i++) {
-    remaining += problem.totalsM[i] * problem.systems[i].z0;
-    if (problem.totalsM[i] > 0) anySystem = true;
-  }
-  const order = problem.stepOrder;
-  // conditional constant of a step: ln Ka + ln ρw + 2 L z(after), as setActivity has it
+  const p = handOut(problem), order = problem.stepOrder, remaining = p.remaining;
+  // conditional constant of a step: ln Ka + ln ρw + 2 L z(after), and under sit the offsets in use, as setActivity has
+  // them (a re-solve's offsets are its last root's: leaving them out starts it that far from the root)
+  const sit = problem.sit;
   const lnKaOf = (code: number): number => {
-    const s = problem.systems[code >> 3], k = (code & 7) + 1;
-    return s.lnKa[k - 1] + problem.lnWaterDensity + 2 * lnGammaZ2 * (s.z0 - k);
+    const i = code >> 3, s = problem.systems[i], k = (code & 7) + 1;
+    const lnKa = s.lnKa[k - 1] + problem.lnWaterDensity + 2 * lnGammaZ2 * (s.z0 - k);
+    return sit ? lnKa + sit.offset[sit.formStart[i] + k - 1] - sit.offset[0] - sit.offset[sit.formStart[i] + k] : lnKa;
   };
-  if (!anySystem || remaining <= 0) {
+  // stop −1: nothing handed out (no system, or a strong acid excess from the start)
+  if (p.stop < 0) {
     if (remaining < -1e-7) return Math.log(-remaining);
-    if (!anySystem) return remaining > 1e-7 ? problem.lnKwc - Math.log(remaining) : problem.lnKwc / 2;
+    if (!p.anySystem) return remaining > 1e-7 ? problem.lnKwc - Math.log(remaining) : problem.lnKwc / 2;
     return Math.max(problem.lnKwc / 2, lnKaOf(order[0]));
   }
-  let previous = NaN;
-  for (let k = 0; k < order.length; k++) {
-    const c = problem.totalsM[order[k] >> 3];
-    if (c <= 0) continue;
-    const lnKa = lnKaOf(order[k]);
-    if (remaining < c) {
-      const fraction = remaining / c;
-      if (fraction < 0.02 && !Number.isNaN(previous)) return (previous + lnKa) / 2;
-      if (fraction > 0.98) {
-        for (let m = k + 1; m < order.length; m++) if (problem.totalsM[order[m] >> 3] > 0) return (lnKa + lnKaOf(order[m])) / 2;
-      }
-      const f = Math.min(Math.max(fraction, 1e-3), 1 - 1e-3);
-      return lnKa - Math.log(f / (1 - f));
+  const previous = p.previous >= 0 ? lnKaOf(p.previous) : NaN;
+  if (p.stop < order.length) {
+    const k = p.stop, lnKa = lnKaOf(order[k]), fraction = p.fraction;
+    if (fraction < 0.02 && !Number.isNaN(previous)) return (previous + lnKa) / 2;
+    if (fraction > 0.98) {
+      for (let m = k + 1; m < order.length; m++) if (problem.totalsM[order[m] >> 3] > 0) return (lnKa + lnKaOf(order[m])) / 2;
     }
-    remaining -= c;
-    previous = lnKa;
+    const f = Math.min(Math.max(fraction, 1e-3), 1 - 1e-3);
+    return lnKa - Math.log(f / (1 - f));
   }
   // past the last step: the rest is strong base
   return remaining > 1e-7 ? problem.lnKwc - Math.log(remaining) : (previous + problem.lnKwc / 2) / 2;
@@ -210,8 +244,8 @@ function settleActivity(problem: Problem, yStart: number | undefined): number {
   setActivity(problem, 0);
   let y = yStart ?? startingLnH(problem);
   if (problem.model === 'ideal') return solveFixedActivity(problem, y, scratch);
-  // first guess of the activity correction from the strong ions alone
-  let lnGamma = lnGammaZ2For(problem, problem.strongZ2M / 2);
+  // first guess of the activity correction from the proton condition's forms (as the joint Newton starts)
+  let lnGamma = lnGammaZ2For(problem, startingIonicStrength(problem));
   setActivity(problem, lnGamma);
   let previous = NaN;
   const search = fixedPointStart();
