@@ -260,6 +260,27 @@ describe('no loop in the engine returns its last iterate', () => {
     expect(out).toMatchObject({ found: false, lowest: 3, highest: f(10) });
   });
 
+  test('a guess close to the root is followed by secant probes beside it, not by a solve at the limit', () => {
+    const f = (a: number): number => 3 + Math.log10(1 + a * 1e6);
+    const root = (10 ** 4.5 - 1) / 1e6;
+    for (const guess of [root * (1 - 1e-4), root * (1 + 1e-4), root * 1.2, root * 0.7]) {
+      const seen: number[] = [];
+      const r = solveInverse({ forward: (a) => { seen.push(a); return f(a); }, limit: 10, target: 7.5, tolerance: 1e-6, quantity: 'pH', argument: 'targetPH', guess, atZero: f(0) });
+      expect(r.found).toBe(true);
+      if (r.found) { expect(r.value).toBe(f(r.amount)); expect(Math.abs(r.value - 7.5)).toBeLessThan(1e-9); }
+      // the limit (10) was never solved: every amount tried lies within a factor 2 of the root
+      expect(seen.filter((a) => !(a > root / 2 && a < 2 * root))).toEqual([]);
+      expect(seen.length).toBeLessThanOrEqual(5);
+    }
+  });
+
+  test('TITRANT of a weak titrant close to its linear guess takes 3 forward solves (5 when it bracketed out to the limit)', () => {
+    const contents = buildContents([{ reagent: 'KH2PO4', amount: 3.4, unit: 'g', row: 1 }, { reagent: 'Na2HPO4', amount: 3.55, unit: 'g', row: 2 }], 1);
+    const r = titrantForTarget(7.1, contents, parseReagentSpec('Na2HPO4·7H2O', 'titrant'), 25, 'davies');
+    expect(r.forwardSolves).toBe(3);
+    expect(Math.abs(withTitrant(contents, parseReagentSpec('Na2HPO4·7H2O', 'titrant'), r.moles, 25, 'davies').pH - 7.1)).toBeLessThan(1e-6);
+  });
+
   test('static scan: every iteration loop in src/engine ends in a coded failure (or an explicit fallback), not a fall-through', () => {
     // iteration loops are the counted ones named iter, pass or attempt; any other counted loop with a constant bound must be a data loop listed here
     // PHTEMP's golden section only chooses where to take one more scan sample (whose pH is a forward solve, used as

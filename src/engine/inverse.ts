@@ -57,15 +57,20 @@ export function solveInverse(p: InverseProblem): InverseOutcome {
 
   if (!(p.limit > 0) || !Number.isFinite(p.limit)) throw new Error(`inverse limit must be finite and above zero, got ${p.limit}`);
   const points: Point[] = [];
+  let g: Point | undefined;
   if (p.guess !== undefined && p.guess > 0 && p.guess <= p.limit) {
     // a guess where the forward solve does not converge is only dropped: the bracket does without it
-    const g = tryAt(p.guess, at);
+    g = tryAt(p.guess, at);
     if (g && Math.abs(miss(g)) <= aim) return done(g);
     if (g) points.push(g);
   }
   const zero: Point = p.atZero !== undefined ? { amount: 0, value: p.atZero } : at(0);
   if (Math.abs(miss(zero)) <= aim) return done(zero);
   points.push(zero);
+  if (g) {
+    const found = probeFromGuess(g, zero, p, at, miss, aim, points);
+    if (found) return done(found);
+  }
   points.sort((a, b) => a.amount - b.amount);
   // the guess and zero may bracket the target already: then the limit is never solved
   let bracket = bracketIn(points, miss);
@@ -95,6 +100,33 @@ export function solveInverse(p: InverseProblem): InverseOutcome {
   }
   const root = brent(bracket[0], bracket[1], at, miss, aim, p);
   return { ...done(root), evaluations };
+}
+
+// Secant probes from the guess before any bracket out to the limit (which first solves the mixture at the limit, the
+// slowest solve of all or none).
+const PROBES = 3;
+
+/**
+ * Secant steps from the guess, in the amount itself (the bracket's asinh scale suits [0, limit], not a step beside
+ * the guess): from zero through the guess, then through the last two points; a step from two points on one side of
+ * the target is doubled so as to straddle it. Ends at a point within `aim` (returned), at a point across the target
+ * from the last (the tight bracket Brent then takes), or after PROBES; every point is added to `points`.
+ */
+function probeFromGuess(g: Point, zero: Point, p: InverseProblem, at: (amount: number) => Point, miss: (q: Point) => number, aim: number, points: Point[]): Point | undefined {
+  let previous = zero, current = g;
+  for (let attempt = 0; attempt < PROBES && current.value !== previous.value; attempt++) {
+    const sameSide = Math.sign(miss(current)) === Math.sign(miss(previous));
+    const amount = current.amount + ((sameSide ? 2 : 1) * (p.target - current.value) * (current.amount - previous.amount)) / (current.value - previous.value);
+    if (!(amount > 0 && amount < p.limit)) return undefined;
+    const q = tryAt(amount, at);
+    if (!q) return undefined;
+    if (Math.abs(miss(q)) <= aim) return q;
+    points.push(q);
+    if (Math.sign(miss(q)) !== Math.sign(miss(current))) return undefined;
+    previous = current;
+    current = q;
+  }
+  return undefined;
 }
 
 // How far the limit is backed off when the forward solve refuses it (a model that does not converge at the cap).
