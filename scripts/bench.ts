@@ -112,19 +112,29 @@ function tableInChild(kind: 'ph' | 'ln' | 'ln1'): { seconds: number; peakRssMiB:
   return JSON.parse(json.trim().split('\n').pop() as string);
 }
 
-/** The slowest single cell over every hostile value in every argument position. */
-function slowestHostileCell(): { ms: number; call: string } {
-  let worst = { ms: 0, call: '' };
+/**
+ * The slowest single cell over every hostile value in every argument position, each called three times: the median
+ * is the figure (a first call also pays for compiling the code it reaches, once per session, whichever input comes
+ * first), and the slowest first call is reported beside it.
+ */
+function slowestHostileCell(): { ms: number; call: string; firstMs: number; firstCall: string } {
+  let worst = { ms: 0, call: '', firstMs: 0, firstCall: '' };
   const fns = impl as unknown as Record<string, (...a: unknown[]) => unknown>;
+  const describe = (name: string, at: number, value: unknown): string => `${name}, argument ${at + 1} = ${JSON.stringify(value)?.slice(0, 40) ?? String(value)}`;
   for (const [name, valid] of Object.entries(VALID)) {
     for (let at = 0; at < valid.length; at++) {
       for (const value of HOSTILE) {
         const args = [...valid];
         args[at] = value;
-        const t0 = performance.now();
-        try { fns[name](...args); } catch { /* failures are the expected outcome here; only time counts */ }
-        const ms = performance.now() - t0;
-        if (ms > worst.ms) worst = { ms, call: `${name}, argument ${at + 1} = ${JSON.stringify(value)?.slice(0, 40) ?? String(value)}` };
+        const times: number[] = [];
+        for (let k = 0; k < 3; k++) {
+          const t0 = performance.now();
+          try { fns[name](...args); } catch { /* failures are the expected outcome here; only time counts */ }
+          times.push(performance.now() - t0);
+        }
+        if (times[0] > worst.firstMs) { worst.firstMs = times[0]; worst.firstCall = describe(name, at, value); }
+        const median = [...times].sort((a, b) => a - b)[1];
+        if (median > worst.ms) { worst.ms = median; worst.call = describe(name, at, value); }
       }
     }
   }
@@ -199,7 +209,7 @@ async function main(): Promise<void> {
     `  for context, =LN(C+1) of one cell: ${ln1.seconds.toFixed(2)} s; PHMIX / that ${(ph.seconds / ln1.seconds).toFixed(2)} (HyperFormula's range bookkeeping dominates)`,
     '',
     `functions bundle (production, minified; runtime + shared chunk + functions): ${bundle.toFixed(1)} KiB (target ≤ 150 KB)`,
-    `slowest cell over the hostile inputs: ${hostile.ms.toFixed(1)} ms (${hostile.call}) (target ≤ 50 ms)`,
+    `slowest cell over the hostile inputs, median of 3 calls: ${hostile.ms.toFixed(1)} ms (${hostile.call}) (target ≤ 50 ms); slowest first call ${hostile.firstMs.toFixed(1)} ms (${hostile.firstCall}; it compiles the code it reaches)`,
     ...stockBench.lines,
     '',
     ...browser.lines,

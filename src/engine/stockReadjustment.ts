@@ -63,6 +63,8 @@ export interface ReadjustedStock extends StockUse {
   perPKw: number;
   /** dpH of the mixture per kelvin of the temperature the stock's pH was set at (its titrant re-solved to it there) */
   perAdjustmentKelvin: number;
+  /** °C, the temperatures the stock's systems' data all hold for (where its pH can have been set) */
+  adjustmentRangeC: [number, number];
 }
 
 /** The stock's own solve and partials, which depend on nothing in the mixture: worked out once per stock. */
@@ -80,6 +82,8 @@ interface StockPartials {
   perPKw: number;
   /** dpH_stock per kelvin at its own composition */
   perKelvin: number;
+  /** °C, where its systems' data all hold */
+  rangeC: [number, number];
 }
 const partialsOf = new WeakMap<AdjustedMaking, StockPartials>();
 
@@ -151,7 +155,9 @@ function stockPartials(making: AdjustedMaking): StockPartials {
   }
   const perKelvin = hot !== undefined && cold !== undefined ? (hot - cold) / (2 * TEMPERATURE_STEP_C)
     : hot !== undefined ? (hot - made.pH) / TEMPERATURE_STEP_C : (made.pH - (cold as number)) / TEMPERATURE_STEP_C;
-  const partials = { madePH: made.pH, lnH: made.lnH, perN, perPKa, pKa25, perPKw: perConstant((d) => ({ pKwShift: d })), perKelvin, remade: new Map<string, number>() };
+  const ranges = made.problem.systems.map((s) => s.system.temperatureRangeC);
+  const rangeC: [number, number] = [Math.max(...ranges.map((r) => r[0])), Math.min(...ranges.map((r) => r[1]))];
+  const partials = { madePH: made.pH, lnH: made.lnH, perN, perPKa, pKa25, perPKw: perConstant((d) => ({ pKwShift: d })), perKelvin, rangeC, remade: new Map<string, number>() };
   partialsOf.set(making, partials);
   return partials;
 }
@@ -202,6 +208,7 @@ export function readjustedStocks(rows: MixtureRow[], contents: Contents, eq: Equ
       perPKa: p.systems.map((s) => s.system.steps.map((_, k) => through(stock.perPKa.get(s.system.id)?.[k] ?? 0))),
       perPKw: through(stock.perPKw),
       perAdjustmentKelvin: through(stock.perKelvin),
+      adjustmentRangeC: stock.rangeC,
     };
   });
 }
