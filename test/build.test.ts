@@ -159,11 +159,12 @@ describe('the built add-in', () => {
   // given as text where first order fails, to 212.1 KiB (2026-12-03, third session), and the joint Newton's start from
   // the proton condition's forms and the sit offsets in use (solver.ts handOut: a sit re-solve 2.5× → 1.7× Davies, 11 %
   // fewer Davies evaluations) to 212.5 KiB, and the inverse solve's secant probes beside its guess (inverse.ts
-  // probeFromGuess: no solve at the limit when the guess is close; worst TITRANT 15.8× → 14.8×) to 212.9 KiB
+  // probeFromGuess: no solve at the limit when the guess is close; worst TITRANT 15.8× → 14.8×) to 212.9 KiB, and
+  // their review mends (probes only on zero's side, the residual with a small step, the one-sided note) to 213.3 KiB
   // (2026-12-03, fourth session). The row asserts the
   // size of the miss, so it fails when the bundle grows further or when it is brought back under the target (then
   // restore the plain bound).
-  test('what the functions need (runtime, shared chunk, functions): known miss of the 150 KB target, about 212.9 KiB', () => {
+  test('what the functions need (runtime, shared chunk, functions): known miss of the 150 KB target, about 213.3 KiB', () => {
     const kib = ['runtime.js', 'shared.js', 'functions.js'].reduce((s, f) => s + statSync(join(out, f)).size, 0) / 1024;
     expect(kib).toBeGreaterThan(150);
     expect(kib).toBeLessThan(213.5);

@@ -31,7 +31,8 @@ describe('the cell functions agree with one another', () => {
     // at the mixture's own kg of water per litre; the cell FRACTIONS, which takes no composition, uses pure water's
     const fractions = fractionsAtPH(PHOSPHATE, row(table, 'pH')[1] as number, t, row(table, 'ionic strength (mol/L)')[1] as number, 'davies', waterOf(t));
     // the solver accepts an evaluated point whose next step in L is below 1e-12 (solver.ts), so the printed I gives an
-    // L that may differ by that much: the constants by 2 |z| · 1e-12 and a share by at most a quarter of it, 1e-12
+    // L that may differ by that much: a share moves by α_j (⟨z²⟩ − z_j²) ΔL, here (H2PO4⁻ and HPO4²⁻, z² 1 and 4) at
+    // most ¼ · 3 · 1e-12 ≈ 0.75e-12
     fractions.forEach((f, i) => expect(Math.abs(f - forms[i] / total)).toBeLessThan(1e-12));
     const cell = (impl.fractions('phosphate', row(table, 'pH')[1], t, row(table, 'ionic strength (mol/L)')[1]) as number[][])[0];
     // the density difference: about 1.2e-4 in the HPO4²⁻ and H2PO4⁻ shares here, where w is 0.17 % below ρw

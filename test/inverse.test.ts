@@ -260,7 +260,7 @@ describe('no loop in the engine returns its last iterate', () => {
     expect(out).toMatchObject({ found: false, lowest: 3, highest: f(10) });
   });
 
-  test('a guess close to the root is followed by secant probes beside it, not by a solve at the limit', () => {
+  test('a guess close to the root: secant probes beside it where it lies on zero\'s side, Brent between zero and it where they straddle; never a solve at the limit', () => {
     const f = (a: number): number => 3 + Math.log10(1 + a * 1e6);
     const root = (10 ** 4.5 - 1) / 1e6;
     for (const guess of [root * (1 - 1e-4), root * (1 + 1e-4), root * 1.2, root * 0.7]) {
@@ -272,6 +272,14 @@ describe('no loop in the engine returns its last iterate', () => {
       expect(seen.filter((a) => !(a > root / 2 && a < 2 * root))).toEqual([]);
       expect(seen.length).toBeLessThanOrEqual(5);
     }
+  });
+
+  test('where zero and the guess straddle the target, no probe: ammonium chloride into KH2PO4 at 34.5 °C gives the 4.62 g root (a probe once made it 279.75 g, a root further on)', () => {
+    // the pH falls from 4.561 (1 g) to 4.484 (10 g), rises to 4.620 (150 g) and falls to 4.515 (280 g): three roots for 4.5153
+    const grams = impl.titrant(4.5153, [['KH2PO4']], [[5.35]], [['g']], 1.087, 'ammonium chloride', 34.5, 'davies', 'g') as number;
+    expect(grams).toBeGreaterThan(4.5);
+    expect(grams).toBeLessThan(4.8);
+    expect(Math.abs((impl.ph([['KH2PO4'], ['ammonium chloride']], [[5.35], [grams]], [['g'], ['g']], 1.087, 34.5, 'davies') as number) - 4.5153)).toBeLessThan(1e-6);
   });
 
   test('TITRANT of a weak titrant close to its linear guess takes 3 forward solves (5 when it bracketed out to the limit)', () => {

@@ -1,4 +1,5 @@
 import { buildContents, prepareProblem, solve } from '../src/engine';
+import * as impl from '../src/functions/impl';
 import type { MixtureRow } from '../src/engine';
 import { startingIonicStrength } from '../src/engine/solver';
 
@@ -58,5 +59,22 @@ describe('a sit re-solve starts from the offsets it carries', () => {
     solve(problem);
     expect(solve(problem).evaluations).toBe(3);
     expect(solve(prepareProblem(buildContents(rows, 1), 25, 'davies')).evaluations).toBe(3);
+  });
+});
+
+describe('what the start does not change', () => {
+  test.each([
+    ['trisodium citrate dihydrate', 3], ['tetrasodium EDTA', 2], ['trisodium phosphate', 5],
+  ] as [string, number][])('the bracketed method\'s first guess stays the strong ions\' own: %s at %d mol/L under Davies, far past its range, answers with its warning', (reagent, mol) => {
+    // (started from the proton condition's larger ionic strength, the first fixed-activity balance had no root: no_convergence)
+    const args = [[[reagent]], [[mol]], [['mol']], 1, 25, 'davies'] as const;
+    expect(typeof impl.ph(...args)).toBe('number');
+    expect(impl.warnings(...args)).toMatch(/above the Davies model's range/);
+  });
+
+  test('a small Newton step counts as the root only with the residual solve accepts: 0.29 M ammonia solution 28 % at 39.1 °C in 6 evaluations (22 when the step alone counted and solve reran the bracketed method)', () => {
+    const eq = solve(prepareProblem(buildContents([r('ammonia solution 28 %', 0.29, 'M', 1)], 1), 39.1, 'davies'));
+    expect(eq.evaluations).toBeLessThanOrEqual(6);
+    expect(eq.residualRelative).toBeLessThan(1e-12);
   });
 });

@@ -144,9 +144,11 @@ describe('catalogue stocks, against the catalogue constant moved in place (± 0.
     const f0 = at('0'), independent = (4 * ((at('0.05') - f0) / 0.05) - (at('0.1') - f0) / 0.1) / 3;
     expect(independent).toBeGreaterThan(0.02);
     expect(Math.abs((line?.sensitivity ?? NaN) - independent)).toBeLessThan(1e-5);
-    // 1 °C cooler than 0 °C is outside the Tris data (0 to 60 °C in the catalogue): the note offers the warmer side only
+    // 1 °C cooler than 0 °C is outside the Tris data (0 to 60 °C in the catalogue): the note offers the warmer side only,
+    // as a rectangular 1 °C wide: half-width 0.5 °C, u = 0.5 |dpH/dT| / √3
     expect(ACID_SYSTEMS.find((s) => s.id === 'tris')?.temperatureRangeC).toEqual([0, 60]);
-    expect(line?.note).toMatch(/no tolerance given: 1 °C warmer \(the data hold for 0 to 60 °C\) would add 0\.0\d+ pH in u/);
+    const stated = Number(/set up to 1 °C warmer \(the data hold for 0 to 60 °C\) would add ([0-9.]+) pH in u/.exec(line?.note ?? '')?.[1]);
+    expect(Math.abs(stated - (0.5 * Math.abs(independent)) / Math.sqrt(3))).toBeLessThan(0.00006); // printed to 2 digits
     expect(line?.note).not.toMatch(/± 1 °C/);
   });
 

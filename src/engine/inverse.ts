@@ -67,7 +67,9 @@ export function solveInverse(p: InverseProblem): InverseOutcome {
   const zero: Point = p.atZero !== undefined ? { amount: 0, value: p.atZero } : at(0);
   if (Math.abs(miss(zero)) <= aim) return done(zero);
   points.push(zero);
-  if (g) {
+  // only where zero and the guess lie on one side (the bracket would go out to the limit): where they straddle the
+  // target, a probe could make the bracket pass over a root between zero and the guess for one further on
+  if (g && Math.sign(miss(g)) === Math.sign(miss(zero))) {
     const found = probeFromGuess(g, zero, p, at, miss, aim, points);
     if (found) return done(found);
   }
@@ -96,7 +98,9 @@ export function solveInverse(p: InverseProblem): InverseOutcome {
   }
   if (!bracket) {
     const values = points.map((q) => q.value);
-    return { found: false, lowest: Math.min(...values), highest: Math.max(...values), atZero: zero.value, atLimit: points[points.length - 1].value, evaluations, searchedTo: limit };
+    // the last point is the largest amount searched (a probe may lie above a limit the top point backed off to)
+    const last = points[points.length - 1];
+    return { found: false, lowest: Math.min(...values), highest: Math.max(...values), atZero: zero.value, atLimit: last.value, evaluations, searchedTo: Math.max(limit, last.amount) };
   }
   const root = brent(bracket[0], bracket[1], at, miss, aim, p);
   return { ...done(root), evaluations };
@@ -107,9 +111,9 @@ export function solveInverse(p: InverseProblem): InverseOutcome {
 const PROBES = 3;
 
 /**
- * Secant steps from the guess, in the amount itself (the bracket's asinh scale suits [0, limit], not a step beside
- * the guess): from zero through the guess, then through the last two points; a step from two points on one side of
- * the target is doubled so as to straddle it. Ends at a point within `aim` (returned), at a point across the target
+ * Secant steps from a guess on zero's side of the target, in the amount itself (the bracket's asinh scale suits
+ * [0, limit], not a step beside the guess): from zero through the guess, then through the last two points; a step
+ * from two points on one side of the target is doubled so as to straddle it. Ends at a point within `aim` (returned), at a point across the target
  * from the last (the tight bracket Brent then takes), or after PROBES; every point is added to `points`.
  */
 function probeFromGuess(g: Point, zero: Point, p: InverseProblem, at: (amount: number) => Point, miss: (q: Point) => number, aim: number, points: Point[]): Point | undefined {

@@ -31,6 +31,8 @@ const LN_H_MAX = 4 * Math.LN10;
 const MAX_STEP_LN = 3 * Math.LN10;
 const Y_TOLERANCE = 1e-13;
 const LN_GAMMA_TOLERANCE = 1e-14;
+/** |charge balance| / Σ |z| c at which solve accepts the joint Newton's root (else the bracketed method). */
+const RESIDUAL_TOLERANCE = 1e-12;
 
 const scratch: BalanceOut = { derivative: 0, ionicStrengthM: 0, chargeScaleM: 0 };
 
@@ -196,9 +198,10 @@ const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scal
  * Joint Newton in (ln h, L) on the charge balance f(y, L) = 0 and the activity consistency
  * L − g(I(y, L)) = 0, with analytic derivatives; converges in a few evaluations from a fair start.
  * Returns undefined when it does not settle, and the caller falls back to the bracketed method.
- * `stepTolerance`: the Newton step in ln h (and a tenth of it in L) below which an evaluated point is the root.
+ * `stepTolerance`: the Newton step in ln h (and a tenth of it in L) below which an evaluated point is the root, if its
+ * |charge balance| / Σ |z| c is also below `residualTolerance` (the one solve accepts; pHWithin asks none).
  */
-function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: number, stepTolerance = 1e-11): { y: number; f: number; scale: number; ionic: number; perBase: number } | undefined {
+function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: number, stepTolerance = 1e-11, residualTolerance = RESIDUAL_TOLERANCE): { y: number; f: number; scale: number; ionic: number; perBase: number } | undefined {
   let L = lnGammaZ2For(problem, startingIonicStrength(problem));
   let y = yStart ?? startingLnH(problem, L);
   // first offsets from the starting guess (no shift: the guess is no root to move)
@@ -214,7 +217,9 @@ function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: 
     // quadratic convergence: a step this small means this point is already the root to about
     // 1e-12 in ln h (stepTolerance 1e-11; pHWithin states its own), and the values in `joint` are this point's own,
     // so no further evaluation
-    const converged = (Math.abs(f) <= 1e-15 * joint.scale && Math.abs(F2) <= LN_GAMMA_TOLERANCE) || (Math.abs(dy) < stepTolerance && Math.abs(dL) < 0.1 * stepTolerance);
+    // (a small step counts only with the residual solve accepts: otherwise one more step, not the bracketed method's rerun)
+    const converged = (Math.abs(f) <= 1e-15 * joint.scale && Math.abs(F2) <= LN_GAMMA_TOLERANCE)
+      || (Math.abs(dy) < stepTolerance && Math.abs(dL) < 0.1 * stepTolerance && Math.abs(f) < residualTolerance * joint.scale);
     // the specific-ion offsets follow the speciation, lagged one step; a root counts only once they have settled
     if (problem.sit) {
       const moved = sitRefresh(problem, y, true);
@@ -244,8 +249,10 @@ function settleActivity(problem: Problem, yStart: number | undefined): number {
   setActivity(problem, 0);
   let y = yStart ?? startingLnH(problem);
   if (problem.model === 'ideal') return solveFixedActivity(problem, y, scratch);
-  // first guess of the activity correction from the proton condition's forms (as the joint Newton starts)
-  let lnGamma = lnGammaZ2For(problem, startingIonicStrength(problem));
+  // first guess of the activity correction from the strong ions alone: this is the fallback, and a larger first ionic
+  // strength (the proton condition's forms) can put Davies, far past its range, where the first fixed-activity
+  // balance has no root in pH −4 to 23 (3 M trisodium citrate, 2 M tetrasodium EDTA)
+  let lnGamma = lnGammaZ2For(problem, problem.strongZ2M / 2);
   setActivity(problem, lnGamma);
   let previous = NaN;
   const search = fixedPointStart();
@@ -272,7 +279,7 @@ function settleActivity(problem: Problem, yStart: number | undefined): number {
  * @example pHWithin(prepareProblem(contents, 25, 'sit'), 1e-6) // the sit pH within about 1e-6
  */
 export function pHWithin(problem: Problem, lnTolerance: number): number {
-  const joint = solveJoint(problem, undefined, lnTolerance, lnTolerance);
+  const joint = solveJoint(problem, undefined, lnTolerance, lnTolerance, Infinity);
   return joint ? pHFromLnH(problem, joint.y) : solve(problem).pH;
 }
 
@@ -288,7 +295,7 @@ export function solve(problem: Problem, yStart?: number, method: 'auto' | 'brack
   const before = problem.evaluations;
   if (problem.model !== 'ideal' && method === 'auto') {
     const joint = solveJoint(problem, yStart, sitTolerance);
-    if (joint && Math.abs(joint.f) / joint.scale < 1e-12) {
+    if (joint && Math.abs(joint.f) / joint.scale < RESIDUAL_TOLERANCE) {
       return { problem, lnH: joint.y, pH: pHFromLnH(problem, joint.y), ionicStrengthM: joint.ionic, residualRelative: Math.abs(joint.f) / joint.scale, evaluations: problem.evaluations - before, lnActivityPerBase: joint.perBase };
     }
   }
