@@ -112,15 +112,14 @@ const PROBES = 3;
 
 /**
  * Secant steps from a guess on zero's side of the target, in the amount itself (the bracket's asinh scale suits
- * [0, limit], not a step beside the guess): from zero through the guess, then through the last two points; a step
- * from two points on one side of the target is doubled so as to straddle it. Ends at a point within `aim` (returned), at a point across the target
- * from the last (the tight bracket Brent then takes), or after PROBES; every point is added to `points`.
+ * [0, limit], not a step beside the guess): from zero through the guess, then through the last two points (all on
+ * that side), each doubled so as to straddle the target. Ends at a point within `aim` (returned), at a point across
+ * the target (the tight bracket Brent then takes), or after PROBES; every point is added to `points`.
  */
 function probeFromGuess(g: Point, zero: Point, p: InverseProblem, at: (amount: number) => Point, miss: (q: Point) => number, aim: number, points: Point[]): Point | undefined {
   let previous = zero, current = g;
   for (let attempt = 0; attempt < PROBES && current.value !== previous.value; attempt++) {
-    const sameSide = Math.sign(miss(current)) === Math.sign(miss(previous));
-    const amount = current.amount + ((sameSide ? 2 : 1) * (p.target - current.value) * (current.amount - previous.amount)) / (current.value - previous.value);
+    const amount = current.amount + (2 * (p.target - current.value) * (current.amount - previous.amount)) / (current.value - previous.value);
     if (!(amount > 0 && amount < p.limit)) return undefined;
     const q = tryAt(amount, at);
     if (!q) return undefined;

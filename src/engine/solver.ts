@@ -214,9 +214,8 @@ function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: 
     let dy = (-f * j22 + F2 * j12) / det;
     let dL = (-F2 * j11 + f * j21) / det;
     if (!Number.isFinite(dy) || !Number.isFinite(dL)) return undefined;
-    // quadratic convergence: a step this small means this point is already the root to about
-    // 1e-12 in ln h (stepTolerance 1e-11; pHWithin states its own), and the values in `joint` are this point's own,
-    // so no further evaluation
+    // quadratic convergence: a step this small puts this point within about the step itself of the root (under 1e-11
+    // in ln h; pHWithin states its own), and the values in `joint` are this point's own, so no further evaluation
     // (a small step counts only with the residual solve accepts: otherwise one more step, not the bracketed method's rerun)
     const converged = (Math.abs(f) <= 1e-15 * joint.scale && Math.abs(F2) <= LN_GAMMA_TOLERANCE)
       || (Math.abs(dy) < stepTolerance && Math.abs(dL) < 0.1 * stepTolerance && Math.abs(f) < residualTolerance * joint.scale);
