@@ -144,11 +144,12 @@ describe('catalogue stocks, against the catalogue constant moved in place (± 0.
     const f0 = at('0'), independent = (4 * ((at('0.05') - f0) / 0.05) - (at('0.1') - f0) / 0.1) / 3;
     expect(independent).toBeGreaterThan(0.02);
     expect(Math.abs((line?.sensitivity ?? NaN) - independent)).toBeLessThan(1e-5);
-    // 1 °C cooler than 0 °C is outside the Tris data (0 to 60 °C in the catalogue): the note offers the warmer side only,
-    // as a rectangular 1 °C wide: half-width 0.5 °C, u = 0.5 |dpH/dT| / √3
+    // 1 °C cooler than 0 °C is outside the Tris data (0 to 60 °C in the catalogue): the note offers the warmer side only.
+    // Set anywhere in [0, 1] °C with the pH still read at 0 °C, the error's root mean square is |dpH/dT| · √(0.5²/3 + 0.5²)
+    // = |dpH/dT| / √3 (its spread about 0.5 °C, and that 0.5 °C offset)
     expect(ACID_SYSTEMS.find((s) => s.id === 'tris')?.temperatureRangeC).toEqual([0, 60]);
     const stated = Number(/set up to 1 °C warmer \(the data hold for 0 to 60 °C\) would add ([0-9.]+) pH in u/.exec(line?.note ?? '')?.[1]);
-    expect(Math.abs(stated - (0.5 * Math.abs(independent)) / Math.sqrt(3))).toBeLessThan(0.00006); // printed to 2 digits
+    expect(Math.abs(stated - Math.sqrt(0.5 ** 2 / 3 + 0.5 ** 2) * Math.abs(independent))).toBeLessThan(0.0006); // printed to 2 digits
     expect(line?.note).not.toMatch(/± 1 °C/);
   });
 

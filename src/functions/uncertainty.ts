@@ -93,13 +93,14 @@ export function uncertaintyBudget(reagents: Cell, amounts: Cell, units: Cell, vo
     checkLinearity(line, { stock: index }, -Infinity, line.input);
     // the temperature its pH was set at: a stock set at another temperature holds another titrant
     const t = stock.making.temperatureC, perK = stock.perAdjustmentKelvin, [lo, hi] = stock.adjustmentRangeC;
-    // at an end of the data, 1 °C beyond it is no temperature the stock can have been set at: the side that is left, as
-    // a rectangular interval 1 °C wide (half-width 0.5 °C) instead of ± 1 °C
-    const warmer = t + 1 <= hi, cooler = t - 1 >= lo, data = `(the data hold for ${lo} to ${hi} °C)`;
-    const [side, halfWidthK] = warmer && cooler ? ['± 1 °C', 1] : warmer || cooler ? [`set up to 1 °C ${warmer ? 'warmer' : 'cooler'} ${data}`, 0.5]
-      : [`set anywhere ${data}`, (hi - lo) / 2];
+    // at an end of the data, 1 °C beyond it is no temperature the stock can have been set at: only the side that is left.
+    // Set anywhere in [t, t + 1] (or [t − 1, t]) with the value still read as t, the error's root mean square is
+    // 1/√3 °C (spread 0.5/√3 about t ± 0.5, and that 0.5 offset), as for ± 1 °C. (No catalogue or custom system's
+    // range is under 2 °C wide, so one side is always left.)
+    const warmer = t + 1 <= hi, cooler = t - 1 >= lo;
+    const side = warmer && cooler ? '± 1 °C' : `set up to 1 °C ${warmer ? 'warmer' : 'cooler'} (the data hold for ${lo} to ${hi} °C)`;
     lines.push({ input: `adjustment temperature: ${stock.name}`, value: t, unit: '°C', limit: 0, distribution: 'rectangular', u: 0, sensitivity: perK,
-      note: `its pH taken as set at ${t} °C (${stock.temperatureWritten ? 'as written' : 'none written'}); no tolerance given: ${side} would add ${Number(((halfWidthK * Math.abs(perK)) / RECT).toPrecision(2))} pH in u (write the stock's 'at … °C' as it was set)` });
+      note: `its pH taken as set at ${t} °C (${stock.temperatureWritten ? 'as written' : 'none written'}); no tolerance given: ${side} would add ${Number((Math.abs(perK) / RECT).toPrecision(2))} pH in u (write the stock's 'at … °C' as it was set)` });
   });
   // a constant's line notes the stocks that hold its system (pKw: every stock), whose titrant follows it
   const readjusted = (holds: (s: (typeof sens.stocks)[number]) => boolean): string => {
