@@ -131,6 +131,8 @@ export function startingLnH(problem: Problem, lnGammaZ2 = 0): number {
   // conditional constant of a step: ln Ka + ln ρw + 2 L z(after), and under sit the offsets in use, as setActivity has
   // them (a re-solve's offsets are its last root's: leaving them out starts it that far from the root)
   const sit = problem.sit;
+  // Kw at that L too, as setActivity has it (problem.lnKwc holds the last evaluation's: a first solve's is at L = 0)
+  const lnKwc = problem.lnKw + 2 * problem.lnWaterDensity - 2 * lnGammaZ2 + (sit ? sit.lnWaterActivity - sit.offset[0] - sit.offset[1] : 0);
   const lnKaOf = (code: number): number => {
     const i = code >> 3, s = problem.systems[i], k = (code & 7) + 1;
     const lnKa = s.lnKa[k - 1] + problem.lnWaterDensity + 2 * lnGammaZ2 * (s.z0 - k);
@@ -139,8 +141,8 @@ export function startingLnH(problem: Problem, lnGammaZ2 = 0): number {
   // stop −1: nothing handed out (no system, or a strong acid excess from the start)
   if (p.stop < 0) {
     if (remaining < -1e-7) return Math.log(-remaining);
-    if (!p.anySystem) return remaining > 1e-7 ? problem.lnKwc - Math.log(remaining) : problem.lnKwc / 2;
-    return Math.max(problem.lnKwc / 2, lnKaOf(order[0]));
+    if (!p.anySystem) return remaining > 1e-7 ? lnKwc - Math.log(remaining) : lnKwc / 2;
+    return Math.max(lnKwc / 2, lnKaOf(order[0]));
   }
   const previous = p.previous >= 0 ? lnKaOf(p.previous) : NaN;
   if (p.stop < order.length) {
@@ -153,7 +155,7 @@ export function startingLnH(problem: Problem, lnGammaZ2 = 0): number {
     return lnKa - Math.log(f / (1 - f));
   }
   // past the last step: the rest is strong base
-  return remaining > 1e-7 ? problem.lnKwc - Math.log(remaining) : (previous + problem.lnKwc / 2) / 2;
+  return remaining > 1e-7 ? lnKwc - Math.log(remaining) : (previous + lnKwc / 2) / 2;
 }
 
 export function lnGammaZ2For(problem: Problem, ionicStrengthM: number): number {
