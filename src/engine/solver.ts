@@ -66,6 +66,7 @@ export function solveFixedActivity(problem: Problem, yStart: number, out: Balanc
 
 /** Where the proton condition's charge runs out, as startingLnH and startingIonicStrength read it (module scratch). */
 const handout = { remaining: 0, anySystem: false, stop: -1, fraction: 0, previous: -1, systemsZ2M: 0 };
+type Handout = typeof handout;
 
 /**
  * The proton condition: the charge the systems must carry (strong ions and their most protonated charges) is handed
@@ -74,7 +75,7 @@ const handout = { remaining: 0, anySystem: false, stop: -1, fraction: 0, previou
  * remains (minus a strong acid excess, or a strong base excess past the last step), and Σ C z² of the systems' forms
  * so handed out (mol/L). Independent of the activity correction, which moves the constants, not their order.
  */
-function handOut(problem: Problem): typeof handout {
+function handOut(problem: Problem): Handout {
   let remaining = problem.strongChargeM, z2 = 0;
   let anySystem = false;
   const systems = problem.systems, totals = problem.totalsM, order = problem.stepOrder;
@@ -115,8 +116,7 @@ function handOut(problem: Problem): typeof handout {
  * (see startingLnH), and a strong acid or base excess as free H⁺ or OH⁻.
  * @example startingIonicStrength(prepareProblem(contents, 25, 'sit')) // 3.6 for 1.2 M ammonium sulfate (NH₄⁺, SO₄²⁻)
  */
-export function startingIonicStrength(problem: Problem): number {
-  const p = handOut(problem);
+export function startingIonicStrength(problem: Problem, p: Handout = handOut(problem)): number {
   const free = p.stop >= 0 && p.stop < problem.stepOrder.length ? 0 : Math.abs(p.remaining);
   return (problem.strongZ2M + p.systemsZ2M + free) / 2;
 }
@@ -126,8 +126,8 @@ export function startingIonicStrength(problem: Problem): number {
  * pH ≈ pKa + log10(lost/kept) (Henderson–Hasselbalch), or the mean of two pKa between steps; a strong acid or base
  * excess sets h or OH directly.
  */
-export function startingLnH(problem: Problem, lnGammaZ2 = 0): number {
-  const p = handOut(problem), order = problem.stepOrder, remaining = p.remaining;
+export function startingLnH(problem: Problem, lnGammaZ2 = 0, p: Handout = handOut(problem)): number {
+  const order = problem.stepOrder, remaining = p.remaining;
   // conditional constant of a step: ln Ka + ln ρw + 2 L z(after), and under sit the offsets in use, as setActivity has
   // them (a re-solve's offsets are its last root's: leaving them out starts it that far from the root)
   const sit = problem.sit;
@@ -204,8 +204,10 @@ const joint: JointJacobian = { f: 0, F2: 0, j11: 0, j12: 0, j21: 0, j22: 0, scal
  * |charge balance| / Σ |z| c is also below `residualTolerance` (the one solve accepts; pHWithin asks none).
  */
 function solveJoint(problem: Problem, yStart: number | undefined, sitTolerance: number, stepTolerance = 1e-11, residualTolerance = RESIDUAL_TOLERANCE): { y: number; f: number; scale: number; ionic: number; perBase: number } | undefined {
-  let L = lnGammaZ2For(problem, startingIonicStrength(problem));
-  let y = yStart ?? startingLnH(problem, L);
+  // one walk of the proton condition for both (it does not depend on L)
+  const start = handOut(problem);
+  let L = lnGammaZ2For(problem, startingIonicStrength(problem, start));
+  let y = yStart ?? startingLnH(problem, L, start);
   // first offsets from the starting guess (no shift: the guess is no root to move)
   // (no first refresh: the offsets in use, from a previous solve of this problem or zero, serve until the first evaluation)
   for (let iter = 0; iter < 40; iter++) {

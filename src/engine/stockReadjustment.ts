@@ -9,6 +9,7 @@ import { bufferCapacity } from './results';
 import type { Equilibrium } from './solver';
 import { solve } from './solver';
 import type { AdjustedMaking } from './stockHandle';
+import { temperatureRangeOf } from './temperatureCrossing';
 import { shiftConstants } from './uncertainty';
 
 // A stock written with a pH (`1 M Tris pH 8.0 with HCl`) is at that pH: it was brought there on a meter. Its titrant is
@@ -63,7 +64,7 @@ export interface ReadjustedStock extends StockUse {
   perPKw: number;
   /** dpH of the mixture per kelvin of the temperature the stock's pH was set at (its titrant re-solved to it there) */
   perAdjustmentKelvin: number;
-  /** °C, the temperatures the stock's systems' data all hold for (where its pH can have been set) */
+  /** °C, the temperatures the stock's systems' and water's data all hold for (where its pH can have been set) */
   adjustmentRangeC: [number, number];
 }
 
@@ -82,7 +83,7 @@ interface StockPartials {
   perPKw: number;
   /** dpH_stock per kelvin at its own composition */
   perKelvin: number;
-  /** °C, where its systems' data all hold */
+  /** °C, where its systems' and water's data all hold (temperatureRangeOf) */
   rangeC: [number, number];
 }
 const partialsOf = new WeakMap<AdjustedMaking, StockPartials>();
@@ -155,9 +156,8 @@ function stockPartials(making: AdjustedMaking): StockPartials {
   }
   const perKelvin = hot !== undefined && cold !== undefined ? (hot - cold) / (2 * TEMPERATURE_STEP_C)
     : hot !== undefined ? (hot - made.pH) / TEMPERATURE_STEP_C : (made.pH - (cold as number)) / TEMPERATURE_STEP_C;
-  const ranges = made.problem.systems.map((s) => s.system.temperatureRangeC);
-  const rangeC: [number, number] = [Math.max(...ranges.map((r) => r[0])), Math.min(...ranges.map((r) => r[1]))];
-  const partials = { madePH: made.pH, lnH: made.lnH, perN, perPKa, pKa25, perPKw: perConstant((d) => ({ pKwShift: d })), perKelvin, rangeC, remade: new Map<string, number>() };
+  const partials = { madePH: made.pH, lnH: made.lnH, perN, perPKa, pKa25, perPKw: perConstant((d) => ({ pKwShift: d })), perKelvin,
+    rangeC: temperatureRangeOf(making.contents), remade: new Map<string, number>() };
   partialsOf.set(making, partials);
   return partials;
 }
